@@ -1,0 +1,39 @@
+import nextCoreWebVitals from "eslint-config-next/core-web-vitals";
+import nextTypescript from "eslint-config-next/typescript";
+
+// Folder boundaries: data flows one way (scene -> lib/fdtd -> workers -> components/app).
+// Putting the bans here means nobody has to remember them.
+const outsideLib = ["@/app/*", "@/components/*", "@/db/*", "@/workers/*", "react", "react-dom", "next", "next/*", "drizzle-orm", "drizzle-orm/*", "pg", "@electric-sql/pglite"];
+
+const config = [
+  ...nextCoreWebVitals,
+  ...nextTypescript,
+  {
+    ignores: [".next/**", "node_modules/**", ".data/**", ".test-data/**", "next-env.d.ts", "db/migrations/**", "lib/fdtd/wasm/build/**"],
+  },
+  {
+    files: ["lib/**/*.ts"],
+    rules: {
+      "no-restricted-imports": ["error", { patterns: [{ group: outsideLib, message: "lib/ is pure TypeScript: no DOM, React, Next.js or database imports." }] }],
+    },
+  },
+  {
+    files: ["workers/**/*.ts"],
+    rules: {
+      "no-restricted-imports": ["error", { patterns: [{ group: ["@/app/*", "@/components/*", "@/db/*", "react", "next", "next/*"], message: "workers/ are thin adapters over lib/ only." }] }],
+    },
+  },
+  {
+    files: ["app/**/*.ts", "app/**/*.tsx", "components/**/*.ts", "components/**/*.tsx"],
+    rules: {
+      "no-restricted-imports": ["error", { patterns: [{ group: ["drizzle-orm", "drizzle-orm/*", "pg", "@electric-sql/pglite"], message: "No SQL under app/ or components/: call a named query in db/queries." }] }],
+    },
+  },
+  {
+    rules: {
+      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+    },
+  },
+];
+
+export default config;
