@@ -1,0 +1,7 @@
+// Runs once when the server starts (not during next build): database and demo first, so the
+// first request finds them ready.
+export async function register(): Promise<void> {
+  if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  const { prepareDatabase } = await import("./db/startup");
+  await prepareDatabase();
+}
