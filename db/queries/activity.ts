@@ -1,4 +1,5 @@
 import "server-only";
+import type { ActivityItem } from "@/lib/http/api-types";
 import { desc, eq } from "drizzle-orm";
 import { getDb } from "../client";
 import { activity, user } from "../schema";
@@ -28,16 +29,6 @@ export async function recordActivity(input: ActivityInput): Promise<void> {
       detail: input.detail ?? {},
     });
   });
-}
-
-export interface ActivityItem {
-  id: string;
-  action: string;
-  subjectType: string;
-  subjectId: string;
-  actorName: string | null;
-  detail: unknown;
-  createdAt: string;
 }
 
 export async function listActivityByStudyId({ studyId, limit = 50 }: { studyId: string; limit?: number }): Promise<ActivityItem[]> {

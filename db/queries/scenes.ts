@@ -1,21 +1,11 @@
 import "server-only";
+import type { SceneListItem } from "@/lib/http/api-types";
 import { asc, eq } from "drizzle-orm";
 import type { Scene as SceneData } from "@/lib/fdtd/scene";
 import { getDb } from "../client";
 import { scene, sceneVersion, user } from "../schema";
 import { recordActivity } from "./activity";
 import { newId, withDatabaseErrors } from "./wrap";
-
-export interface SceneListItem {
-  id: string;
-  name: string;
-  description: string;
-  isReference: boolean;
-  version: number;
-  data: unknown;
-  updatedByName: string | null;
-  updatedAt: string;
-}
 
 export async function listScenesByStudyId({ studyId }: { studyId: string }): Promise<SceneListItem[]> {
   return withDatabaseErrors("list the scenes", async () => {

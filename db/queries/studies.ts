@@ -1,22 +1,11 @@
 import "server-only";
+import type { StudyListItem, StudyRecord } from "@/lib/http/api-types";
 import { and, desc, eq, sql } from "drizzle-orm";
 import type { StudyInput } from "@/lib/validation/study";
 import { getDb } from "../client";
 import { run, scene, study, user } from "../schema";
 import { recordActivity } from "./activity";
 import { newId, withDatabaseErrors } from "./wrap";
-
-export interface StudyListItem {
-  id: string;
-  title: string;
-  description: string;
-  siteReference: string;
-  createdByName: string | null;
-  createdAt: string;
-  updatedAt: string;
-  sceneCount: number;
-  runCount: number;
-}
 
 export async function listStudiesByTeamId({ teamId }: { teamId: string }): Promise<StudyListItem[]> {
   return withDatabaseErrors("list the studies", async () => {
@@ -39,16 +28,6 @@ export async function listStudiesByTeamId({ teamId }: { teamId: string }): Promi
       .orderBy(desc(study.updatedAt));
     return rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString(), updatedAt: row.updatedAt.toISOString() }));
   });
-}
-
-export interface StudyRecord {
-  id: string;
-  teamId: string;
-  title: string;
-  description: string;
-  siteReference: string;
-  createdAt: string;
-  updatedAt: string;
 }
 
 export async function getStudyById({ id }: { id: string }): Promise<StudyRecord | null> {

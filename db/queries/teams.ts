@@ -1,16 +1,10 @@
 import "server-only";
+import type { TeamMember, TeamMembershipSummary } from "@/lib/http/api-types";
 import { and, asc, eq } from "drizzle-orm";
 import { isTeamRole, type TeamRole } from "@/lib/access/roles";
 import { getDb } from "../client";
 import { membership, team, user } from "../schema";
 import { newId, withDatabaseErrors } from "./wrap";
-
-export interface TeamMembershipSummary {
-  teamId: string;
-  teamName: string;
-  teamSlug: string;
-  role: TeamRole;
-}
 
 function slugify(text: string): string {
   const base = text
@@ -84,13 +78,6 @@ export async function getMembershipRole({ teamId, userId }: { teamId: string; us
     const role = rows[0]?.role;
     return isTeamRole(role) ? role : null;
   });
-}
-
-export interface TeamMember {
-  userId: string;
-  name: string;
-  email: string;
-  role: TeamRole;
 }
 
 export async function listMembersByTeamId({ teamId }: { teamId: string }): Promise<TeamMember[]> {

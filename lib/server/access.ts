@@ -1,7 +1,8 @@
 // The one server-side gate: every route handler and page asks here who is calling and whether
 // their role in the owning team allows the action.
 import "server-only";
-import { getStudyById, type StudyRecord } from "@/db/queries/studies";
+import { getStudyById } from "@/db/queries/studies";
+import type { StudyRecord } from "@/lib/http/api-types";
 import { getMembershipRole } from "@/db/queries/teams";
 import { decideAccess } from "@/lib/access/decide";
 import type { TeamAction, TeamRole } from "@/lib/access/roles";

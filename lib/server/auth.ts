@@ -15,11 +15,25 @@ export function skipPersonalTeamFor(email: string): void {
   usersWithoutPersonalTeam.add(email.toLowerCase());
 }
 
-function trustedOrigins(): string[] {
-  const configured = (process.env.RAREFACT_TRUSTED_ORIGINS ?? "")
+function listFromEnv(name: string): string[] {
+  return (process.env[name] ?? "")
     .split(",")
-    .map((origin) => origin.trim())
+    .map((item) => item.trim())
     .filter(Boolean);
+}
+
+/** A fixed BETTER_AUTH_URL in production; otherwise the request's own host, if it is allowed. */
+function baseURL() {
+  if (process.env.BETTER_AUTH_URL) return process.env.BETTER_AUTH_URL;
+  return {
+    allowedHosts: ["localhost:*", "127.0.0.1:*", "localhost", "127.0.0.1", ...listFromEnv("RAREFACT_ALLOWED_HOSTS")],
+    fallback: `http://localhost:${process.env.PORT ?? "3000"}`,
+    protocol: "auto" as const,
+  };
+}
+
+function trustedOrigins(): string[] {
+  const configured = listFromEnv("RAREFACT_TRUSTED_ORIGINS");
   // Local installs are served on loopback on whatever port is free.
   return [...configured, "http://localhost:*", "http://127.0.0.1:*"];
 }
@@ -28,7 +42,7 @@ function createAuth(db: Database) {
   return betterAuth({
     ...baseAuthOptions(),
     secret: authSecret(),
-    baseURL: process.env.BETTER_AUTH_URL || undefined,
+    baseURL: baseURL(),
     trustedOrigins: trustedOrigins(),
     database: drizzleAdapter(db, { provider: "pg", schema }),
     advanced: { database: { generateId: () => crypto.randomUUID() } },

@@ -1,0 +1,77 @@
+// The shapes the API answers with, shared by db/queries (which build them) and the client
+// (which reads them). Dates travel as ISO strings.
+import type { TeamRole } from "@/lib/access/roles";
+
+export interface TeamMembershipSummary {
+  teamId: string;
+  teamName: string;
+  teamSlug: string;
+  role: TeamRole;
+}
+
+export interface MeResponse {
+  user: { id: string; name: string; email: string };
+  memberships: TeamMembershipSummary[];
+  activeTeamId: string | null;
+}
+
+export interface StudyListItem {
+  id: string;
+  title: string;
+  description: string;
+  siteReference: string;
+  createdByName: string | null;
+  createdAt: string;
+  updatedAt: string;
+  sceneCount: number;
+  runCount: number;
+}
+
+export interface StudyRecord {
+  id: string;
+  teamId: string;
+  title: string;
+  description: string;
+  siteReference: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface SceneListItem {
+  id: string;
+  name: string;
+  description: string;
+  isReference: boolean;
+  version: number;
+  data: unknown;
+  updatedByName: string | null;
+  updatedAt: string;
+}
+
+export interface ActivityItem {
+  id: string;
+  action: string;
+  subjectType: string;
+  subjectId: string;
+  actorName: string | null;
+  detail: unknown;
+  createdAt: string;
+}
+
+export interface TeamMember {
+  userId: string;
+  name: string;
+  email: string;
+  role: TeamRole;
+}
+
+export interface StudiesResponse {
+  studies: StudyListItem[];
+}
+
+export interface StudyResponse {
+  study: StudyRecord;
+  role: TeamRole;
+  scenes: SceneListItem[];
+  activity: ActivityItem[];
+}
