@@ -34,6 +34,11 @@ export interface SimulationOptions {
   buffer?: ArrayBufferLike;
   /** Steps between energy checks (instability, decay stop). */
   energyCheckInterval?: number;
+  /**
+   * Replaces the scene's Courant number without the stability check. Only for demonstrating the
+   * instability detection in tests; user input always goes through `parseScene`.
+   */
+  unsafeCourantNumber?: number;
 }
 
 export interface ProgressReport {
@@ -166,7 +171,8 @@ export class Simulation {
 
   constructor(sceneInput: unknown, options: SimulationOptions = {}) {
     const started = now();
-    this.scene = parseSceneOrThrow(sceneInput);
+    const parsed = parseSceneOrThrow(sceneInput);
+    this.scene = options.unsafeCourantNumber === undefined ? parsed : { ...parsed, resolution: { ...parsed.resolution, courantNumber: options.unsafeCourantNumber } };
     this.grid = deriveGrid(this.scene);
     this.raster = rasteriseScene(this.scene, this.grid);
     this.layout = planState(this.grid, this.raster, this.scene.output.levelMaps);

@@ -1,0 +1,160 @@
+// Kernel tests: hand-computed steps on tiny grids, the fast paths against the general ones, the
+// boundary rows, degenerate sizes, and the strip split.
+import { describe, expect, it } from "vitest";
+
+import { pressureSplit, pressureUniform, velocityXTable, velocityXUniform } from "@/lib/fdtd/kernel";
+import { Simulation, splitRows } from "@/lib/fdtd/simulation";
+
+import { everyFeatureScene, unitGridScene } from "./helpers";
+
+function at(field: Float32Array, stride: number, i: number, j: number): number {
+  return field[j * stride + i]!;
+}
+
+describe("one step on a 3 x 3 rigid box (c = rho = h = 1, Courant 0.5: both gains 0.5)", () => {
+  it("moves a unit pressure at the centre into its four faces and neighbours as the update equations say", () => {
+    const sim = new Simulation(unitGridScene(3, 3));
+    const { pressure, velocityX, velocityY, stride } = sim.fields();
+    pressure[1 * stride + 1] = 1;
+    sim.advance();
+    // vx[j][i] = -0.5 (p[j][i] - p[j][i-1]); vy[j][i] = -0.5 (p[j][i] - p[j-1][i])
+    expect(at(velocityX, stride, 1, 1)).toBe(-0.5);
+    expect(at(velocityX, stride, 2, 1)).toBe(0.5);
+    expect(at(velocityY, stride, 1, 1)).toBe(-0.5);
+    expect(at(velocityY, stride, 1, 2)).toBe(0.5);
+    expect(at(velocityX, stride, 1, 0)).toBe(0);
+    // p[1][1] = 1 - 0.5 (0.5 + 0.5 + 0.5 + 0.5) = 0; each neighbour gets -0.5 * (+-0.5) = 0.25; corners 0.
+    expect(at(pressure, stride, 1, 1)).toBe(0);
+    expect(at(pressure, stride, 0, 1)).toBe(0.25);
+    expect(at(pressure, stride, 2, 1)).toBe(0.25);
+    expect(at(pressure, stride, 1, 0)).toBe(0.25);
+    expect(at(pressure, stride, 1, 2)).toBe(0.25);
+    expect(at(pressure, stride, 0, 0)).toBe(0);
+  });
+
+  it("keeps the outer (rigid) faces at zero and the total pressure sum constant", () => {
+    const sim = new Simulation(unitGridScene(3, 3));
+    const { pressure, velocityX, velocityY, stride } = sim.fields();
+    pressure[1 * stride + 1] = 1;
+    for (let n = 0; n < 25; n++) sim.advance();
+    let sum = 0;
+    for (let j = 0; j < 3; j++) {
+      expect(at(velocityX, stride, 0, j)).toBe(0);
+      expect(at(velocityX, stride, 3, j)).toBe(0);
+      for (let i = 0; i < 3; i++) sum += at(pressure, stride, i, j);
+    }
+    for (let i = 0; i < 3; i++) {
+      expect(at(velocityY, stride, i, 0)).toBe(0);
+      expect(at(velocityY, stride, i, 3)).toBe(0);
+    }
+    // With rigid walls no volume leaves: sum of p (times h^2 / (rho c^2)) is conserved.
+    expect(sum).toBeCloseTo(1, 6);
+  });
+
+  it("steps a one-cell grid without touching anything", () => {
+    const sim = new Simulation(unitGridScene(1, 1));
+    const { pressure } = sim.fields();
+    pressure[0] = 2;
+    sim.advance();
+    expect(pressure[0]).toBe(2);
+  });
+});
+
+describe("row kernels", () => {
+  it("the lossless fast path equals the general path with unit decay, bit for bit", () => {
+    const stride = 40;
+    const f = new Float32Array(8 * stride);
+    for (let k = 0; k < f.length; k++) f[k] = Math.sin(k * 0.37) * (k % 7) * 1e-3;
+    const g = f.slice();
+    const decays = 4 * stride;
+    const gains = 5 * stride;
+    for (let i = 0; i < stride; i++) {
+      g[decays + i] = 1;
+      g[gains + i] = Math.fround(0.013);
+    }
+    // vx row at 0, p row at stride
+    velocityXUniform(f, 0, stride, 1, 33, 1, Math.fround(0.013), 1e-20);
+    velocityXTable(g, 0, stride, decays, gains, 1, 33, 1e-20);
+    expect(Array.from(f.subarray(0, stride))).toEqual(Array.from(g.subarray(0, stride)));
+  });
+
+  it("a split PML cell with zero damping equals the plain pressure update", () => {
+    const stride = 24;
+    const f = new Float32Array(10 * stride);
+    for (let k = 0; k < 6 * stride; k++) f[k] = Math.cos(k * 0.91) * 0.01;
+    // p row 0, vx row 1, vy rows 2 and 3, px row 4 (zero: the whole pressure sits in py), tables at rows 6, 7
+    const g = f.slice();
+    for (let i = 0; i < stride; i++) {
+      g[6 * stride + i] = 1;
+      g[7 * stride + i] = Math.fround(120);
+    }
+    pressureUniform(f, 0, stride, 2 * stride, 3 * stride, 0, 20, 1, Math.fround(120), 1e-20);
+    pressureSplit(g, 0, 4 * stride, stride, 2 * stride, 3 * stride, 6 * stride, 7 * stride, 0, 20, 1, Math.fround(120), 1e-20);
+    // The split form adds the x and y parts in another order: equal to a few float32 roundings of the terms.
+    for (let i = 0; i < 20; i++) {
+      const terms = Math.abs(f[i]!) + 120 * (Math.abs(f[stride + i + 1]! - f[stride + i]!) + Math.abs(f[3 * stride + i]! - f[2 * stride + i]!));
+      expect(Math.abs(g[i]! - f[i]!)).toBeLessThanOrEqual(4 * 2 ** -24 * terms);
+    }
+  });
+
+  it("flushes values below the flush level to exactly zero and leaves larger ones unchanged", () => {
+    const f = new Float32Array([0, 1e-30, 3e-39, 0.25]);
+    // vx[i] -= 0 * (...): only the flush (x + F) - F acts, F = 1e-20 in float32. vx and p rows both at 0.
+    velocityXUniform(f, 0, 0, 1, 4, 1, 0, Math.fround(1e-20));
+    expect(f[1]).toBe(0);
+    expect(f[2]).toBe(0);
+    expect(f[3]).toBe(0.25);
+  });
+});
+
+describe("strips", () => {
+  it("splits rows into contiguous nearly equal strips", () => {
+    expect(splitRows(10, 3)).toEqual([
+      [0, 3],
+      [3, 6],
+      [6, 10],
+    ]);
+    expect(splitRows(2, 5)).toEqual([
+      [0, 1],
+      [1, 2],
+    ]);
+  });
+
+  it("stepping by strips gives fields bit-identical to one strip, with every feature switched on", () => {
+    const scene = everyFeatureScene();
+    const whole = new Simulation(scene);
+    const three = new Simulation(scene);
+    const many = new Simulation(scene);
+    const ny = whole.layout.ny;
+    const threeStrips = splitRows(ny, 3);
+    // Strips of one and two rows and a strip ending inside the top PML.
+    const manyStrips: [number, number][] = [[0, 1], [1, 3], [3, 17], [17, ny - 4], [ny - 4, ny]];
+    for (let n = 0; n < 120; n++) {
+      whole.advance();
+      three.advance(threeStrips);
+      many.advance(manyStrips);
+    }
+    const bytes = (s: Simulation) => new Uint8Array(s.buffer, 0, s.layout.byteLength);
+    expect(Buffer.compare(bytes(whole), bytes(three))).toBe(0);
+    expect(Buffer.compare(bytes(whole), bytes(many))).toBe(0);
+    // The test is not vacuous: the field has moved.
+    expect(whole.acousticEnergy()).toBeGreaterThan(0);
+  });
+
+  it("lives in a caller-supplied SharedArrayBuffer", () => {
+    const scene = everyFeatureScene();
+    const probe = new Simulation(scene);
+    const shared = new SharedArrayBuffer(probe.layout.byteLength);
+    const sim = new Simulation(scene, { buffer: shared });
+    for (let n = 0; n < 40; n++) {
+      probe.advance();
+      sim.advance(splitRows(sim.layout.ny, 2));
+    }
+    expect(sim.buffer).toBe(shared);
+    expect(Buffer.compare(new Uint8Array(probe.buffer, 0, probe.layout.byteLength), new Uint8Array(shared, 0, probe.layout.byteLength))).toBe(0);
+  });
+
+  it("rejects a supplied buffer that is too small", () => {
+    expect(() => new Simulation(everyFeatureScene(), { buffer: new ArrayBuffer(1024) })).toThrow(/needs/);
+  });
+});
