@@ -12,15 +12,15 @@ export interface DatabaseLocation {
 
 export function databaseLocation(env: NodeJS.ProcessEnv = process.env): DatabaseLocation {
   const postgresUrl = env.DATABASE_URL?.trim() || undefined;
-  const dataDir = env.RAREFACT_DATA_DIR?.trim() || path.join(process.cwd(), ".data");
-  const pgliteDir = dataDir.startsWith("memory://") ? "memory://" : path.join(path.resolve(dataDir), "pglite");
+  const dataDir = env.RAREFACT_DATA_DIR?.trim() || path.join(/*turbopackIgnore: true*/ process.cwd(), ".data");
+  const pgliteDir = dataDir.startsWith("memory://") ? "memory://" : path.join(path.resolve(/*turbopackIgnore: true*/ dataDir), "pglite");
   return { kind: postgresUrl ? "postgres" : "pglite", pgliteDir, postgresUrl };
 }
 
 /** The folder for the app's own files beside the database (auth secret, lock). */
 export function dataDirectory(env: NodeJS.ProcessEnv = process.env): string {
-  const dataDir = env.RAREFACT_DATA_DIR?.trim() || path.join(process.cwd(), ".data");
-  return dataDir.startsWith("memory://") ? "memory://" : path.resolve(dataDir);
+  const dataDir = env.RAREFACT_DATA_DIR?.trim() || path.join(/*turbopackIgnore: true*/ process.cwd(), ".data");
+  return dataDir.startsWith("memory://") ? "memory://" : path.resolve(/*turbopackIgnore: true*/ dataDir);
 }
 
-export const migrationsFolder = path.join(process.cwd(), "db", "migrations");
+export const migrationsFolder = path.join(/*turbopackIgnore: true*/ process.cwd(), "db", "migrations");

@@ -27,9 +27,9 @@ function SceneCard({ item }: { item: SceneListItem }) {
     <li className="flex flex-col overflow-hidden rounded-lg border border-rule bg-panel shadow-[0_1px_0_rgba(22,33,43,0.04)]">
       <div className="border-b border-rule bg-paper/60 p-3">
         {parsed.ok ? (
-          <SceneSketch scene={parsed.scene} className="h-40 w-full" />
+          <SceneSketch scene={parsed.scene} className="h-auto w-full" />
         ) : (
-          <p className="flex h-40 items-center justify-center text-sm text-signal-error">This scene no longer validates: {parsed.problems[0]?.message}</p>
+          <p className="flex h-32 items-center justify-center text-sm text-signal-error">This scene no longer validates: {parsed.problems[0]?.message}</p>
         )}
       </div>
       <div className="flex flex-1 flex-col gap-3 p-4">

@@ -1,33 +1,16 @@
-// The invented demo: a small consultancy, its members, and a roadside barrier study with a
-// reference section and two designs. Seeded on first start; running it again changes nothing.
+// Seeds the invented demo (people and study in demo-accounts.ts, scenes in scenes/): a reference
+// section and two barrier designs. Seeded on first start; running it again changes nothing.
 import "server-only";
-import type { TeamRole } from "@/lib/access/roles";
 import { parseSceneOrThrow } from "@/lib/fdtd/scene";
 import { getAuth, skipPersonalTeamFor } from "@/lib/server/auth";
 import { listScenesByStudyId, createScene } from "../queries/scenes";
 import { createStudy, listStudiesByTeamId } from "../queries/studies";
 import { addMembership, createTeam, getMembershipRole, getTeamBySlug } from "../queries/teams";
 import { getUserIdByEmail } from "../queries/users";
+import { demoMembers, demoPassword, demoStudy, demoTeam } from "./demo-accounts";
 import designA from "./scenes/design-a-3m-reflective.json";
 import designB from "./scenes/design-b-4m-absorptive.json";
 import reference from "./scenes/reference-no-barrier.json";
-
-export const demoPassword = "fernhill-demo-2026";
-export const demoTeam = { slug: "fernhill-acoustics-demo", name: "Fernhill Acoustics (demo)" };
-
-export const demoMembers: { name: string; email: string; role: TeamRole; job: string }[] = [
-  { name: "Ines Okafor", email: "ines@fernhill.test", role: "owner", job: "engineer who runs the study" },
-  { name: "Tomas Lindgren", email: "tomas@fernhill.test", role: "editor", job: "colleague who tries variants" },
-  { name: "Priya Raman", email: "priya@fernhill.test", role: "reviewer", job: "reviewer who signs off runs" },
-  { name: "Owen Marsh", email: "owen@fernhill.test", role: "viewer", job: "client's planner, read-only" },
-];
-
-export const demoStudy = {
-  title: "Alder Row: roadside noise barrier",
-  siteReference: "FH-2026-014",
-  description:
-    "Cross-section from the near lane of Fernhill Road to the west façades of Alder Row. Does a 3 m reflective timber barrier do enough for the garden and the first-floor windows, or is the 4 m absorptive design worth its cost? Invented demo data.",
-};
 
 const demoScenes = [
   { data: reference, isReference: true, description: "Existing situation: raised verge, lawn, façade; no barrier. Insertion loss is measured against this." },
@@ -98,3 +81,5 @@ export function demoCredentialsText(): string {
   const lines = demoMembers.map((m) => `    ${m.email.padEnd(22)} ${m.role.padEnd(9)} ${m.name}, ${m.job}`);
   return [`  Demo team "${demoTeam.name}", password for everyone: ${demoPassword}`, ...lines].join("\n");
 }
+
+export { demoMembers, demoPassword, demoStudy, demoTeam };

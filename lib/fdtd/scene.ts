@@ -450,10 +450,16 @@ export function formatJsonPath(segments: readonly PropertyKey[]): string {
   return out;
 }
 
+/** Zod's message, except for a missing field, which reads better as "required". */
+function problemMessage(issue: z.core.$ZodIssue): string {
+  if (issue.code === "invalid_type" && issue.input === undefined) return `required: expected ${issue.expected}`;
+  return issue.message;
+}
+
 function problemsFromZod(error: z.ZodError): SceneProblem[] {
   return error.issues.map((issue) => {
     const segments = issue.path.map((s) => (typeof s === "symbol" ? String(s) : s));
-    return { path: formatJsonPath(segments), pathSegments: segments, message: issue.message };
+    return { path: formatJsonPath(segments), pathSegments: segments, message: problemMessage(issue) };
   });
 }
 

@@ -17,8 +17,10 @@ const expectedTables = ["activity", "account", "comment", "invitation", "members
 
 async function tableNames(): Promise<string[]> {
   const db = await getDb();
-  const result = await db.execute(sql`select table_name from information_schema.tables where table_schema = 'public' order by table_name`);
-  return (result.rows as { table_name: string }[]).map((row) => row.table_name);
+  const result = (await db.execute(sql`select table_name from information_schema.tables where table_schema = 'public' order by table_name`)) as unknown as {
+    rows: { table_name: string }[];
+  };
+  return result.rows.map((row) => row.table_name);
 }
 
 async function demoStudyTitlesSeenByEngineer(): Promise<string[]> {

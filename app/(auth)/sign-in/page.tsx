@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
-import { demoMembers, demoPassword } from "@/db/seed/demo";
+import { demoMembers, demoPassword } from "@/db/seed/demo-accounts";
 import { getPageCaller } from "@/lib/server/page-session";
 
 export const metadata: Metadata = { title: "Sign in" };

@@ -8,7 +8,7 @@
  * Recurrence (A&S 9.1.27): C_{nu-1} + C_{nu+1} = (2 nu / x) C_nu for C = J, Y.
  * Y grows with order, so upward recurrence is stable for it. J decays once nu > x, so it is run upward only
  * while nu < x and continued with ratios J_nu / J_{nu-1} from Miller's downward recurrence
- * (A&S 9.12 and 19.28 on backward recurrence; no zeros of J_nu(x) lie at nu > x, so the ratios are finite).
+ * (A&S 9.12, numerical methods; no zeros of J_nu(x) lie at nu >= x, so those ratios are finite).
  */
 import { besselJ, besselY } from "./hankel";
 
@@ -16,6 +16,23 @@ export type OrderRun = "integer" | "halfInteger";
 
 function firstOrder(run: OrderRun): number {
   return run === "integer" ? 0 : 0.5;
+}
+
+/**
+ * Fills out[m] = J_{nu0 + m}(x) / J_{nu0 + m - 1}(x) for m >= 1 (out[0] is left at 0) by Miller's backward
+ * recurrence rho_m = 1 / (2 (nu0 + m) / x - rho_{m+1}), started with rho = 0 far above the last order.
+ * Exact ratios of the minimal solution; finite wherever nu0 + m - 1 >= x (no zeros of J there).
+ */
+export function besselJRatioRun(run: OrderRun, x: number, out: Float64Array): void {
+  if (!(x > 0)) throw new RangeError(`besselJRatioRun needs x > 0, got ${x}`);
+  const count = out.length;
+  const nu0 = firstOrder(run);
+  const top = count + 20 + Math.ceil(Math.sqrt(40 * count) + x);
+  let rho = 0;
+  for (let m = top; m >= 1; m--) {
+    rho = 1 / ((2 * (nu0 + m)) / x - rho);
+    if (m < count) out[m] = rho;
+  }
 }
 
 /**
@@ -48,14 +65,9 @@ export function besselJRun(run: OrderRun, x: number, out: Float64Array): void {
     last++;
   }
   if (last + 1 >= count) return;
-  // Miller: ratio rho_m = J_{nu0+m} / J_{nu0+m-1} = 1 / (2 (nu0 + m) / x - rho_{m+1}), started far above.
-  const top = count + 20 + Math.ceil(Math.sqrt(40 * count) + x);
+  // Beyond: J_{nu0+m} = J_{nu0+m-1} * rho_m (order nu0 + last >= x, so J there is not at a zero).
   const ratios = new Float64Array(count);
-  let rho = 0;
-  for (let m = top; m > last; m--) {
-    rho = 1 / ((2 * (nu0 + m)) / x - rho);
-    if (m < count) ratios[m] = rho;
-  }
+  besselJRatioRun(run, x, ratios);
   for (let m = last + 1; m < count; m++) out[m] = (out[m - 1] ?? 0) * (ratios[m] ?? 0);
 }
 

@@ -4,8 +4,9 @@
  * screen is the ray angle = 0 (its upper face) = 2 pi (its lower face), the open region is 0 < angle < 2 pi.
  *
  * The total field G solves (lap + k^2) G = -delta(x - x0) with dG/dn = 0 on both faces and is outgoing.
- * Eigenfunction series (Macdonald 1915; Bowman, Senior & Uslenghi, Electromagnetic and Acoustic Scattering
- * by Simple Shapes, 1969, ch. 8, the wedge series with exterior angle 2 pi):
+ * Eigenfunction series (Macdonald, Proc. London Math. Soc., 1915; Bowman, Senior & Uslenghi, Electromagnetic
+ * and Acoustic Scattering by Simple Shapes, 1969, chapters on the wedge and the half-plane, chapter numbers
+ * not checked; here the wedge series with exterior angle 2 pi):
  *
  *   G = (i/4) sum_{n>=0} eps_n J_{n/2}(k r<) H^(1)_{n/2}(k r>) cos(n theta / 2) cos(n theta0 / 2),
  *   eps_0 = 1, eps_n = 2.
@@ -13,11 +14,13 @@
  * (Each radial factor (i pi / 2) J_nu(k r<) H_nu(k r>) jumps in slope by -1/r0 at r = r0, by the Wronskian
  * J_nu H_nu' - J_nu' H_nu = 2i/(pi x), A&S 9.1.16; the angular functions sqrt(eps_n / 2 pi) cos(n theta/2)
  * are orthonormal on (0, 2 pi) with zero slope at both faces.) The series converges like (r< / r>)^{n/2},
- * so it is slow when source and receiver are at similar distances from the edge, and useless when equal.
+ * so it is slow when source and receiver are at similar distances from the edge, and fails when they are equal.
  *
  * The default route is an integral form, valid for every geometry. With cos(n theta/2) cos(n theta0/2) =
- * (cos(n psi-/2) + cos(n psi+/2)) / 2, psi-+ = theta -+ theta0, insert the Schlaefli-type representation
- * (the analytic continuation in order of Graf's addition theorem, A&S 9.1.79; checked numerically)
+ * (cos(n psi-/2) + cos(n psi+/2)) / 2, psi-+ = theta -+ theta0, insert the representation below. It follows
+ * from Graf's addition theorem (A&S 9.1.79: J_m H_m is the m-th Fourier coefficient of H0(k R(phi))) continued
+ * to non-integer order by the contour argument behind Schlaefli's integral for J_nu (A&S 9.1.22); it was
+ * derived for this module and checked numerically (mpmath, and against the series in the tests):
  *
  *   J_nu(k r<) H_nu(k r>) = (1/pi) int_0^pi H0(k R(phi)) cos(nu phi) dphi
  *                           - (sin(nu pi)/pi) int_0^inf H0(k Rz(zeta)) e^{-nu zeta} dzeta,
@@ -31,14 +34,14 @@
  *   K(zeta) = sum over a in {(pi +- psi-)/2, (pi +- psi+)/2} of sin a / (2 (cosh(zeta/2) - cos a)),
  *
  * with chi(psi) = 1 where |psi| < pi (psi taken modulo 4 pi into (-2 pi, 2 pi]), 1/2 on the shadow or
- * reflection boundary, 0 beyond. This is Macdonald's form of the solution written for a line source.
+ * reflection boundary, 0 beyond.
  * Near zeta = 0 the kernel peaks (width ~ a) when the receiver is near a shadow or reflection boundary;
  * H0(k L) int K is subtracted and added back in closed form (L = r + r0). Beyond k Rz = max(k L + 2 pi, 25)
  * the path turns into the complex plane, Rz = Rs + i y, where H0 decays like e^{-k y} (no singularity
  * lies to the right of Rs: the branch points are at +-(r + r0), +-(r - r0) and the kernel's poles at
  * real Rz <= r + r0), using the large-argument expansion of ./hankel.ts.
  */
-import { besselJRun, besselYRun } from "./bessel-sequences";
+import { besselJRatioRun, besselJRun, besselYRun, type OrderRun } from "./bessel-sequences";
 import { add, type Complex, complex, divide, magnitude, multiply, scale, sqrt as complexSqrt, subtract } from "./complex";
 import { freeFieldGreen2D, hankel1, hankel1Asymptotic } from "./hankel";
 import { integrateOverPanels } from "./quadrature";
@@ -256,12 +259,13 @@ function edgeDiffractionIntegral(k: number, r: number, r0: number, psiMinus: num
   return add(add(complex(segment1[0] ?? 0, segment1[1] ?? 0), closedForm), complex(segment2[0] ?? 0, segment2[1] ?? 0));
 }
 
-/** Largest number of terms the series may take before giving up. */
-const SERIES_TERM_LIMIT = 40000;
+/** Largest order the series may reach before giving up. */
+const SERIES_ORDER_LIMIT = 20000;
 
 /**
  * Exact total field from the eigenfunction series (see the module comment). Converges geometrically with
- * ratio sqrt(r< / r>); throws a RangeError when r and r0 are too close for it (use halfPlaneGreen there).
+ * ratio sqrt(r< / r>); throws a RangeError when r = r0 (use halfPlaneGreen there) or when r and r0 are
+ * so close that more than 20000 orders would be needed.
  */
 export function halfPlaneGreenSeries(wavenumber: number, source: EdgePolarPosition, receiver: EdgePolarPosition): Complex {
   checkPosition("source", source);
@@ -273,47 +277,71 @@ export function halfPlaneGreenSeries(wavenumber: number, source: EdgePolarPositi
   if (inner === outer) throw new RangeError("the series does not converge when source and receiver are equally far from the edge");
   // Orders needed: past x< (where J starts to fall) and until (x< / x>)^nu < 1e-17.
   let orders = Math.ceil(Math.max(inner + 40 + 4 * Math.cbrt(inner), 40 / Math.log(outer / inner)));
-  while (orders <= SERIES_TERM_LIMIT) {
+  while (orders <= SERIES_ORDER_LIMIT) {
     const result = sumSeries(inner, outer, source.angle, receiver.angle, orders);
     if (result) return result;
     orders *= 2;
   }
-  throw new RangeError(`the series did not converge within ${SERIES_TERM_LIMIT} orders`);
+  throw new RangeError(`the series did not converge within order ${SERIES_ORDER_LIMIT}: r and r0 are too close`);
 }
 
-/** Sums the series over orders nu = n/2 < maxOrder; null when it has not converged by then. */
+/**
+ * Products J_nu(x<) J_nu(x>) and J_nu(x<) Y_nu(x>) for nu = nu0 + m, m < count. Below the turning point
+ * they come from the Bessel values; beyond nu = x> + 1, where J underflows and Y overflows at high order,
+ * from the ratios J_nu / J_{nu-1} (Miller) and Y_nu / Y_{nu-1} (upward, sigma_{m+1} = 2 nu / x - 1 / sigma_m).
+ */
+function besselProducts(run: OrderRun, inner: number, outer: number, count: number): { jj: Float64Array; jy: Float64Array } {
+  const jj = new Float64Array(count);
+  const jy = new Float64Array(count);
+  const nu0 = run === "integer" ? 0 : 0.5;
+  // First index whose order exceeds x> + 1, and at least 2 so two Y values seed the ratio recurrence.
+  const direct = Math.min(count, Math.max(2, Math.ceil(outer + 2 - nu0)));
+  const jInner = new Float64Array(direct);
+  const jOuter = new Float64Array(direct);
+  const yOuter = new Float64Array(direct);
+  besselJRun(run, inner, jInner);
+  besselJRun(run, outer, jOuter);
+  besselYRun(run, outer, yOuter);
+  for (let m = 0; m < direct; m++) {
+    jj[m] = (jInner[m] ?? 0) * (jOuter[m] ?? 0);
+    jy[m] = (jInner[m] ?? 0) * (yOuter[m] ?? 0);
+  }
+  if (direct >= count) return { jj, jy };
+  const ratioInner = new Float64Array(count);
+  const ratioOuter = new Float64Array(count);
+  besselJRatioRun(run, inner, ratioInner);
+  besselJRatioRun(run, outer, ratioOuter);
+  let sigma = (yOuter[direct - 1] ?? 0) / (yOuter[direct - 2] ?? 1);
+  for (let m = direct; m < count; m++) {
+    sigma = (2 * (nu0 + m - 1)) / outer - 1 / sigma;
+    const rhoInner = ratioInner[m] ?? 0;
+    jj[m] = (jj[m - 1] ?? 0) * rhoInner * (ratioOuter[m] ?? 0);
+    jy[m] = (jy[m - 1] ?? 0) * rhoInner * sigma;
+  }
+  return { jj, jy };
+}
+
+/** Sums the series over orders nu = n/2 <= maxOrder; null when it has not converged by then. */
 function sumSeries(inner: number, outer: number, sourceAngle: number, receiverAngle: number, maxOrder: number): Complex | null {
   const count = maxOrder + 1;
-  const runs = (["integer", "halfInteger"] as const).map((run) => {
-    const jInner = new Float64Array(count);
-    const jOuter = new Float64Array(count);
-    const yOuter = new Float64Array(count);
-    besselJRun(run, inner, jInner);
-    besselJRun(run, outer, jOuter);
-    besselYRun(run, outer, yOuter);
-    return { jInner, jOuter, yOuter };
-  });
+  const integer = besselProducts("integer", inner, outer, count);
+  const halfInteger = besselProducts("halfInteger", inner, outer, count);
   let sumRe = 0;
   let sumIm = 0;
   let quietTerms = 0;
   for (let n = 0; n < 2 * count; n++) {
-    const run = runs[n % 2];
+    const products = n % 2 === 0 ? integer : halfInteger;
     const m = n >> 1;
-    if (!run) break;
-    const jIn = run.jInner[m] ?? 0;
-    const jOut = run.jOuter[m] ?? 0;
-    const yOut = run.yOuter[m] ?? 0;
-    const order = 0.5 * n;
+    const jj = products.jj[m] ?? 0;
+    const jy = products.jy[m] ?? 0;
     const weight = n === 0 ? 1 : 2;
+    const angular = weight * Math.cos(0.5 * n * receiverAngle) * Math.cos(0.5 * n * sourceAngle);
+    sumRe += angular * jj;
+    sumIm += angular * jy;
     // |eps_n J_nu(x<) H_nu(x>)| bounds the term whatever the angles.
-    const bound = weight * Math.abs(jIn) * Math.hypot(jOut, yOut);
-    if (jIn !== 0 && !Number.isFinite(bound)) return null;
-    if (jIn !== 0) {
-      const angular = weight * Math.cos(0.5 * n * receiverAngle) * Math.cos(0.5 * n * sourceAngle);
-      sumRe += angular * jIn * jOut;
-      sumIm += angular * jIn * yOut;
-    }
-    if (order > inner && (jIn === 0 || bound < 1e-17 * Math.hypot(sumRe, sumIm))) {
+    const bound = weight * Math.hypot(jj, jy);
+    if (!Number.isFinite(bound)) return null;
+    if (0.5 * n > inner && bound < 1e-17 * Math.hypot(sumRe, sumIm)) {
       quietTerms++;
       if (quietTerms >= 4) return complex(-0.25 * sumIm, 0.25 * sumRe); // (i/4) * sum
     } else {

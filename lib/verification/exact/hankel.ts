@@ -4,7 +4,7 @@
  * Time convention: harmonic fields are Re{P e^{-i omega t}}, so outgoing waves are H^(1)(kr) and
  *   (lap + k^2) G = -delta(x - x0)   has the outgoing solution   G(r) = (i/4) H0^(1)(k r)
  * (e.g. Morse & Feshbach, Methods of Theoretical Physics, 1953, ch. 7; the normalisation follows from
- * H0^(1)(x) ~ (2i/pi) ln x as x -> 0, A&S 9.1.13, since -ln(r)/(2 pi) is the Green's function of -lap).
+ * H0^(1)(x) ~ (2i/pi) ln x as x -> 0, A&S 9.1.8, since -ln(r)/(2 pi) is the Green's function of -lap).
  * Under the opposite convention e^{+i omega t} the same field is (-i/4) H0^(2)(kr), its complex conjugate.
  *
  * H^(1)_n = J_n + i Y_n and H^(2)_n = J_n - i Y_n (A&S 9.1.3, 9.1.4). Real arguments use J and Y of the
