@@ -9,6 +9,7 @@ import { useMe, useStudies } from "@/lib/client/queries";
 import type { StudyListItem } from "@/lib/http/api-types";
 import { CreateStudyForm } from "./create-study-form";
 import { RoleBadge } from "./role-badge";
+import { TeamPanel } from "./team-panel";
 
 function StudyCard({ study }: { study: StudyListItem }) {
   return (
@@ -86,26 +87,31 @@ export function StudiesDashboard() {
 
       {creating ? <CreateStudyForm teamId={membership.teamId} onDone={() => setCreating(false)} /> : null}
 
-      {studies.isPending ? (
-        <LoadingRows label="Loading studies" />
-      ) : studies.isError ? (
-        <ErrorState title="The studies could not be loaded" message={studies.error.message} onRetry={() => studies.refetch()} />
-      ) : studies.data.studies.length === 0 ? (
-        <EmptyState
-          title="No studies yet"
-          action={canCreate && !creating ? <Button onClick={() => setCreating(true)}>Start the first study</Button> : undefined}
-        >
-          {canCreate
-            ? "A study holds one acoustic question, such as a barrier for a road or an opening in a plant-room wall."
-            : "Your role in this team is read-only; studies appear here when an editor creates them."}
-        </EmptyState>
-      ) : (
-        <ul aria-label="Studies" className="grid gap-4 md:grid-cols-2">
-          {studies.data.studies.map((study) => (
-            <StudyCard key={study.id} study={study} />
-          ))}
-        </ul>
-      )}
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_18rem]">
+        <section aria-label="Study list" className="flex flex-col gap-4">
+          {studies.isPending ? (
+            <LoadingRows label="Loading studies" />
+          ) : studies.isError ? (
+            <ErrorState title="The studies could not be loaded" message={studies.error.message} onRetry={() => studies.refetch()} />
+          ) : studies.data.studies.length === 0 ? (
+            <EmptyState
+              title="No studies yet"
+              action={canCreate && !creating ? <Button onClick={() => setCreating(true)}>Start the first study</Button> : undefined}
+            >
+              {canCreate
+                ? "A study holds one acoustic question, such as a barrier for a road or an opening in a plant-room wall."
+                : "Your role in this team is read-only; studies appear here when an editor creates them."}
+            </EmptyState>
+          ) : (
+            <ul aria-label="Studies" className="grid gap-4 xl:grid-cols-2">
+              {studies.data.studies.map((study) => (
+                <StudyCard key={study.id} study={study} />
+              ))}
+            </ul>
+          )}
+        </section>
+        <TeamPanel teamId={membership.teamId} currentUserEmail={me.data.user.email} />
+      </div>
     </div>
   );
 }
