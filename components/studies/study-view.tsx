@@ -67,7 +67,7 @@ function Figure({ label, value }: { label: string; value: string }) {
   return (
     <div>
       <dt className="text-muted">{label}</dt>
-      <dd className="tabular font-mono text-[13px] text-ink">{value}</dd>
+      <dd className="tabular whitespace-nowrap font-mono text-[13px] text-ink">{value}</dd>
     </div>
   );
 }
