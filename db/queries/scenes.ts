@@ -1,9 +1,10 @@
 import "server-only";
-import type { SceneListItem } from "@/lib/http/api-types";
-import { asc, eq } from "drizzle-orm";
+import { and, asc, desc, eq } from "drizzle-orm";
+import { AppError } from "@/lib/http/app-error";
+import type { SceneListItem, SceneRecord, SceneVersionItem } from "@/lib/http/api-types";
 import type { Scene as SceneData } from "@/lib/fdtd/scene";
 import { getDb } from "../client";
-import { scene, sceneVersion, user } from "../schema";
+import { scene, sceneVersion, study, user } from "../schema";
 import { recordActivity } from "./activity";
 import { newId, withDatabaseErrors } from "./wrap";
 
@@ -59,4 +60,113 @@ export async function createScene({
     await recordActivity({ teamId, studyId, actorId: authorId, action: "scene.created", subjectType: "scene", subjectId: id, detail: { name } });
     return id;
   });
+}
+
+export async function getSceneById({ id }: { id: string }): Promise<SceneRecord | null> {
+  return withDatabaseErrors("read the scene", async () => {
+    const db = await getDb();
+    const rows = await db
+      .select({
+        id: scene.id,
+        studyId: scene.studyId,
+        teamId: study.teamId,
+        name: scene.name,
+        description: scene.description,
+        isReference: scene.isReference,
+        version: scene.version,
+        data: scene.data,
+        forkedFromSceneId: scene.forkedFromSceneId,
+        forkedFromVersion: scene.forkedFromVersion,
+        updatedByName: user.name,
+        createdAt: scene.createdAt,
+        updatedAt: scene.updatedAt,
+      })
+      .from(scene)
+      .innerJoin(study, eq(study.id, scene.studyId))
+      .leftJoin(user, eq(user.id, scene.updatedBy))
+      .where(eq(scene.id, id))
+      .limit(1);
+    const row = rows[0];
+    return row ? { ...row, createdAt: row.createdAt.toISOString(), updatedAt: row.updatedAt.toISOString() } : null;
+  });
+}
+
+/**
+ * Saves a new version of a scene if, and only if, the caller edited the current one. A save based
+ * on an older version answers 409 and changes nothing, so concurrent edits are never lost silently.
+ */
+export async function saveSceneVersion({
+  teamId,
+  sceneId,
+  authorId,
+  baseVersion,
+  name,
+  description,
+  data,
+  note,
+}: {
+  teamId: string;
+  sceneId: string;
+  authorId: string;
+  baseVersion: number;
+  name: string;
+  description: string;
+  data: SceneData;
+  note: string;
+}): Promise<{ version: number }> {
+  const saved = await withDatabaseErrors("save the scene", async () => {
+    const db = await getDb();
+    return db.transaction(async (tx) => {
+      const next = baseVersion + 1;
+      const updated = await tx
+        .update(scene)
+        .set({ name, description, data, version: next, updatedBy: authorId, updatedAt: new Date() })
+        .where(and(eq(scene.id, sceneId), eq(scene.version, baseVersion)))
+        .returning({ studyId: scene.studyId });
+      const row = updated[0];
+      if (!row) return null;
+      await tx.insert(sceneVersion).values({ id: newId(), sceneId, version: next, data, authorId, note });
+      return { version: next, studyId: row.studyId };
+    });
+  });
+  if (!saved) {
+    const current = await getSceneById({ id: sceneId });
+    throw new AppError(
+      "conflict:scene",
+      current
+        ? `Someone saved version ${current.version} of this scene${current.updatedByName ? ` (${current.updatedByName})` : ""} after you opened version ${baseVersion}. Reload it, or keep your copy as a new variant.`
+        : "The scene no longer exists.",
+    );
+  }
+  await recordActivity({ teamId, studyId: saved.studyId, actorId: authorId, action: "scene.saved", subjectType: "scene", subjectId: sceneId, detail: { name, version: saved.version, note } });
+  return { version: saved.version };
+}
+
+export async function listSceneVersionsBySceneId({ sceneId }: { sceneId: string }): Promise<SceneVersionItem[]> {
+  return withDatabaseErrors("read the scene's history", async () => {
+    const db = await getDb();
+    const rows = await db
+      .select({ version: sceneVersion.version, authorName: user.name, note: sceneVersion.note, createdAt: sceneVersion.createdAt })
+      .from(sceneVersion)
+      .leftJoin(user, eq(user.id, sceneVersion.authorId))
+      .where(eq(sceneVersion.sceneId, sceneId))
+      .orderBy(desc(sceneVersion.version));
+    return rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString() }));
+  });
+}
+
+export async function getSceneVersionData({ sceneId, version }: { sceneId: string; version: number }): Promise<unknown | null> {
+  return withDatabaseErrors("read the scene version", async () => {
+    const db = await getDb();
+    const rows = await db
+      .select({ data: sceneVersion.data })
+      .from(sceneVersion)
+      .where(and(eq(sceneVersion.sceneId, sceneId), eq(sceneVersion.version, version)))
+      .limit(1);
+    return rows[0]?.data ?? null;
+  });
+}
+
+export async function countScenesByStudyId({ studyId }: { studyId: string }): Promise<number> {
+  return (await listScenesByStudyId({ studyId })).length;
 }

@@ -75,3 +75,31 @@ export interface StudyResponse {
   scenes: SceneListItem[];
   activity: ActivityItem[];
 }
+
+export interface SceneRecord {
+  id: string;
+  studyId: string;
+  teamId: string;
+  name: string;
+  description: string;
+  isReference: boolean;
+  version: number;
+  data: unknown;
+  forkedFromSceneId: string | null;
+  forkedFromVersion: number | null;
+  updatedByName: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface SceneVersionItem {
+  version: number;
+  authorName: string | null;
+  note: string;
+  createdAt: string;
+}
+
+export interface SceneResponse {
+  scene: SceneRecord;
+  role: TeamRole;
+}

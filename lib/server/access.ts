@@ -1,8 +1,9 @@
 // The one server-side gate: every route handler and page asks here who is calling and whether
 // their role in the owning team allows the action.
 import "server-only";
+import { getSceneById } from "@/db/queries/scenes";
 import { getStudyById } from "@/db/queries/studies";
-import type { StudyRecord } from "@/lib/http/api-types";
+import type { SceneRecord, StudyRecord } from "@/lib/http/api-types";
 import { getMembershipRole } from "@/db/queries/teams";
 import { decideAccess } from "@/lib/access/decide";
 import type { TeamAction, TeamRole } from "@/lib/access/roles";
@@ -56,4 +57,19 @@ export async function requireStudyAccess({
   const role = study ? await getMembershipRole({ teamId: study.teamId, userId: caller.userId }) : null;
   enforce(decideAccess({ signedIn: true, role, action }), "study", action);
   return { study: study!, role: role! };
+}
+
+export async function requireSceneAccess({
+  caller,
+  sceneId,
+  action,
+}: {
+  caller: Caller;
+  sceneId: string;
+  action: TeamAction;
+}): Promise<{ scene: SceneRecord; role: TeamRole }> {
+  const scene = await getSceneById({ id: sceneId });
+  const role = scene ? await getMembershipRole({ teamId: scene.teamId, userId: caller.userId }) : null;
+  enforce(decideAccess({ signedIn: true, role, action }), "scene", action);
+  return { scene: scene!, role: role! };
 }
