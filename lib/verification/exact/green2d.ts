@@ -13,6 +13,10 @@
  * Its Fourier transform is the Helmholtz Green's function (i/4) H0^(1)(kr) of ./hankel.ts
  * (time factor e^{-i omega t}).
  *
+ * Relation to the acoustic equations: with a volume source Q(t) (m^2/s per metre of line) in
+ * dp/dt = -rho0 c^2 div v + rho0 c^2 Q(t) delta(x - x0) and rho0 dv/dt = -grad p, eliminating v gives the
+ * equation above with s(t) = rho0 dQ/dt.
+ *
  * The kernel has an inverse-square-root singularity at the wavefront tau = t - r/c. The substitution
  * tau = t - r/c - u^2 removes it exactly:
  *

@@ -46,6 +46,9 @@ import { add, type Complex, complex, divide, magnitude, multiply, scale, sqrt as
 import { freeFieldGreen2D, hankel1, hankel1Asymptotic } from "./hankel";
 import { integrateOverPanels } from "./quadrature";
 
+/** Quadrature accuracy of the diffraction integral; H0 itself is good to about 1e-8 (see ./hankel.ts). */
+const QUADRATURE_TOLERANCE = 1e-10;
+
 /** A position in polar coordinates about the edge. */
 export interface EdgePolarPosition {
   /** Distance from the edge, m (>= 0). */
@@ -73,6 +76,7 @@ export function polarAboutEdge(edge: PlanePoint, screenDirection: PlanePoint, po
   const dy = point.y - edge.y;
   let angle = Math.atan2(ux * dy - uy * dx, ux * dx + uy * dy);
   if (angle < 0) angle += 2 * Math.PI;
+  // atan2 gives -0 just below the screen line; report it as 0.
   return { radius: Math.hypot(dx, dy), angle: angle === 0 ? 0 : angle };
 }
 
@@ -84,8 +88,7 @@ function checkPosition(name: string, position: EdgePolarPosition): void {
 
 /** Straight-line distance between two positions given about the edge, m. */
 export function distanceBetween(a: EdgePolarPosition, b: EdgePolarPosition): number {
-  const squared = a.radius * a.radius + b.radius * b.radius - 2 * a.radius * b.radius * Math.cos(a.angle - b.angle);
-  return Math.sqrt(Math.max(0, squared));
+  return distanceAtSeparation(a.radius, b.radius, a.angle - b.angle);
 }
 
 /** Free-field Green's function (i/4) H0^(1)(k R) between source and receiver (no screen). */
@@ -114,8 +117,8 @@ export function visibility(reducedPsi: number): number {
 }
 
 /**
- * Exact total field G at the receiver (integral form; see the module comment), in the units of
- * (i/4) H0: a unit line source. Time factor e^{-i omega t}.
+ * Exact total field G at the receiver for a unit line source (integral form; see the module comment):
+ * the Green's function, to be multiplied by the source strength. Time factor e^{-i omega t}.
  * @param wavenumber k = 2 pi f / c, rad/m (> 0)
  */
 export function halfPlaneGreen(wavenumber: number, source: EdgePolarPosition, receiver: EdgePolarPosition): Complex {
@@ -150,7 +153,7 @@ function distanceAtSeparation(r: number, r0: number, psi: number): number {
   return Math.sqrt((r - r0) * (r - r0) + 4 * r * r0 * s * s);
 }
 
-/** The four angles a = (pi +- psi)/2 of the kernel, with sin a, sin(a/2)^2 and cot(a/2) precomputed. */
+/** One of the four angles a = (pi +- psi)/2 of the kernel, as the sines and cosines the kernel needs. */
 interface KernelAngle {
   readonly sinA: number;
   readonly cosA: number;
@@ -225,7 +228,7 @@ function edgeDiffractionIntegral(k: number, r: number, r0: number, psiMinus: num
     breakpoints1,
     2,
     segment1,
-    { relativeTolerance: 1e-11 },
+    { relativeTolerance: QUADRATURE_TOLERANCE },
   );
   const closedForm = scale(hankelAtEdgePath, kernelIntegral(angles, switchZeta));
 
@@ -254,7 +257,7 @@ function edgeDiffractionIntegral(k: number, r: number, r0: number, psiMinus: num
     [0, 0.5 / k, 2 / k, 6 / k, 14 / k, 26 / k, 45 / k],
     2,
     segment2,
-    { relativeTolerance: 1e-11 },
+    { relativeTolerance: QUADRATURE_TOLERANCE },
   );
   return add(add(complex(segment1[0] ?? 0, segment1[1] ?? 0), closedForm), complex(segment2[0] ?? 0, segment2[1] ?? 0));
 }

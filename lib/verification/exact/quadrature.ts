@@ -52,18 +52,17 @@ export type VectorIntegrand = (x: number, out: Float64Array) => void;
 export interface AdaptiveOptions {
   /** Relative accuracy wanted, measured against the integral of |f| (default 1e-10). */
   relativeTolerance?: number;
-  /** Panels the interval is first cut into (default 8). */
+  /** Panels the interval is first cut into by integrateAdaptive (default 8). */
   initialPanels?: number;
-  /** Maximum bisection depth of a panel (default 40). */
-  maxDepth?: number;
+  /** Most panels the refinement may create; it stops there even if short of the tolerance (default 4000). */
+  maxPanels?: number;
   /** Points of the Gauss-Legendre rule per panel (default 10). */
   order?: number;
 }
 
 /**
  * Adaptive Gauss-Legendre integral of a smooth vector-valued f over [a, b], added into `result`.
- * A panel is accepted when the rule on the whole panel agrees with the sum over its two halves.
- * The tolerance is relative to a first estimate of int |f|, so cancelling integrands still converge.
+ * See integrateOverPanels.
  */
 export function integrateAdaptive(f: VectorIntegrand, a: number, b: number, dimension: number, result: Float64Array, options: AdaptiveOptions = {}): void {
   const initialPanels = options.initialPanels ?? 8;
@@ -72,20 +71,31 @@ export function integrateAdaptive(f: VectorIntegrand, a: number, b: number, dime
   integrateOverPanels(f, breakpoints, dimension, result, options);
 }
 
+interface Panel {
+  readonly lo: number;
+  readonly hi: number;
+  /** Rule applied to the two halves (the better estimate). */
+  readonly value: Float64Array;
+  /** |halves - whole|, summed over components: the panel's error estimate. */
+  readonly error: number;
+  /** Sum of |w f| over the halves: the scale rounding errors are measured against. */
+  readonly absolute: number;
+}
+
 /**
- * As integrateAdaptive, over the panels between consecutive `breakpoints` (ascending or descending);
- * put breakpoints where f has kinks or changes scale.
+ * Globally adaptive Gauss-Legendre integral of a smooth vector-valued f, added into `result`, over the panels
+ * between consecutive `breakpoints` (ascending or descending; put breakpoints where f has kinks or changes
+ * scale). Each panel's error is the difference between the rule on the panel and on its two halves; the
+ * panel with the largest error is split until the summed error is below relativeTolerance * int |f|.
+ * Panels whose error is at rounding level are left alone, and refinement stops at maxPanels, so noise in f
+ * (e.g. from approximated special functions) cannot make it run away.
  */
 export function integrateOverPanels(f: VectorIntegrand, breakpoints: ArrayLike<number>, dimension: number, result: Float64Array, options: AdaptiveOptions = {}): void {
   const relativeTolerance = options.relativeTolerance ?? 1e-10;
-  const maxDepth = options.maxDepth ?? 40;
+  const maxPanels = options.maxPanels ?? 4000;
   const rule = gaussLegendreRule(options.order ?? 10);
-  const panelCount = breakpoints.length - 1;
-  if (panelCount < 1) return;
-  const value = new Float64Array(dimension);
   const out = new Float64Array(dimension);
   const whole = new Float64Array(dimension);
-  const halves = new Float64Array(dimension);
 
   const applyRule = (lo: number, hi: number, sum: Float64Array): number => {
     const half = 0.5 * (hi - lo);
@@ -102,43 +112,91 @@ export function integrateOverPanels(f: VectorIntegrand, breakpoints: ArrayLike<n
     }
     return absolute;
   };
+  const evaluate = (lo: number, hi: number): Panel => {
+    whole.fill(0);
+    applyRule(lo, hi, whole);
+    const value = new Float64Array(dimension);
+    const middle = 0.5 * (lo + hi);
+    const absolute = applyRule(lo, middle, value) + applyRule(middle, hi, value);
+    let error = 0;
+    for (let d = 0; d < dimension; d++) error += Math.abs((value[d] ?? 0) - (whole[d] ?? 0));
+    return { lo, hi, value, error: Number.isFinite(error) ? error : 0, absolute };
+  };
 
-  // First pass: a scale for the tolerance, int |f| over all panels.
-  let scaleEstimate = 0;
-  let totalWidth = 0;
-  for (let p = 0; p < panelCount; p++) {
+  // Max-heap of panels by error.
+  const heap: Panel[] = [];
+  const push = (panel: Panel) => {
+    heap.push(panel);
+    let i = heap.length - 1;
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      const up = heap[parent];
+      const here = heap[i];
+      if (!up || !here || up.error >= here.error) break;
+      heap[parent] = here;
+      heap[i] = up;
+      i = parent;
+    }
+  };
+  const pop = (): Panel | undefined => {
+    const top = heap[0];
+    const last = heap.pop();
+    if (heap.length > 0 && last) {
+      heap[0] = last;
+      let i = 0;
+      for (;;) {
+        const left = 2 * i + 1;
+        const right = left + 1;
+        let largest = i;
+        if ((heap[left]?.error ?? -1) > (heap[largest]?.error ?? -1)) largest = left;
+        if ((heap[right]?.error ?? -1) > (heap[largest]?.error ?? -1)) largest = right;
+        if (largest === i) break;
+        const a = heap[i];
+        const b = heap[largest];
+        if (!a || !b) break;
+        heap[i] = b;
+        heap[largest] = a;
+        i = largest;
+      }
+    }
+    return top;
+  };
+
+  const done = new Float64Array(dimension);
+  let totalError = 0;
+  let totalAbsolute = 0;
+  let panels = 0;
+  for (let p = 0; p + 1 < breakpoints.length; p++) {
     const lo = breakpoints[p] ?? 0;
     const hi = breakpoints[p + 1] ?? 0;
-    scaleEstimate += applyRule(lo, hi, whole);
-    totalWidth += Math.abs(hi - lo);
-  }
-  if (totalWidth === 0) return;
-  const tolerance = relativeTolerance * scaleEstimate;
-
-  // Depth-first over panels, each stored as [lo, hi, depth].
-  const stack: number[] = [];
-  for (let p = panelCount - 1; p >= 0; p--) stack.push(breakpoints[p] ?? 0, breakpoints[p + 1] ?? 0, 0);
-  while (stack.length > 0) {
-    const depth = stack.pop() ?? 0;
-    const hi = stack.pop() ?? 0;
-    const lo = stack.pop() ?? 0;
     if (lo === hi) continue;
-    whole.fill(0);
-    halves.fill(0);
-    applyRule(lo, hi, whole);
-    const middle = 0.5 * (lo + hi);
-    applyRule(lo, middle, halves);
-    applyRule(middle, hi, halves);
-    let error = 0;
-    for (let d = 0; d < dimension; d++) error += Math.abs((halves[d] ?? 0) - (whole[d] ?? 0));
-    const allowed = (tolerance * Math.abs(hi - lo)) / totalWidth;
-    if (error <= allowed || depth >= maxDepth || !Number.isFinite(error)) {
-      for (let d = 0; d < dimension; d++) value[d] = (value[d] ?? 0) + (halves[d] ?? 0);
-    } else {
-      stack.push(lo, middle, depth + 1, middle, hi, depth + 1);
-    }
+    const panel = evaluate(lo, hi);
+    push(panel);
+    totalError += panel.error;
+    totalAbsolute += panel.absolute;
+    panels++;
   }
-  for (let d = 0; d < dimension; d++) result[d] = (result[d] ?? 0) + (value[d] ?? 0);
+  const roundingLevel = 64 * Number.EPSILON;
+  while (heap.length > 0 && totalError > relativeTolerance * totalAbsolute && panels < maxPanels) {
+    const worst = pop();
+    if (!worst) break;
+    const middle = 0.5 * (worst.lo + worst.hi);
+    // At rounding level, or too narrow to split: keep as it is.
+    if (worst.error <= roundingLevel * worst.absolute || middle === worst.lo || middle === worst.hi) {
+      for (let d = 0; d < dimension; d++) done[d] = (done[d] ?? 0) + (worst.value[d] ?? 0);
+      totalError -= worst.error;
+      continue;
+    }
+    const left = evaluate(worst.lo, middle);
+    const right = evaluate(middle, worst.hi);
+    push(left);
+    push(right);
+    totalError += left.error + right.error - worst.error;
+    totalAbsolute += left.absolute + right.absolute - worst.absolute;
+    panels++;
+  }
+  for (const panel of heap) for (let d = 0; d < dimension; d++) done[d] = (done[d] ?? 0) + (panel.value[d] ?? 0);
+  for (let d = 0; d < dimension; d++) result[d] = (result[d] ?? 0) + (done[d] ?? 0);
 }
 
 /** Adaptive integral of a real function (see integrateAdaptive). */
