@@ -311,3 +311,33 @@ export const activity = pgTable(
   (table) => [index("activity_team_id_idx").on(table.teamId, table.createdAt), index("activity_study_id_idx").on(table.studyId)],
 );
 export type Activity = typeof activity.$inferSelect;
+
+export const blockKinds = ["notes", "scene", "run", "chart"] as const;
+export type BlockKind = (typeof blockKinds)[number];
+
+/**
+ * A study is a notebook: an ordered list of blocks (notes in Markdown, a scene, a run, a chart).
+ * Each block carries a version so that concurrent edits answer 409 instead of overwriting.
+ */
+export const studyBlock = pgTable(
+  "study_block",
+  {
+    id: text("id").primaryKey(),
+    studyId: text("study_id")
+      .notNull()
+      .references(() => study.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: blockKinds }).notNull(),
+    /** Ordering key; gaps allowed, rewritten when blocks move. */
+    position: integer("position").notNull(),
+    /** notes: { markdown }; scene: { sceneId }; run: { runId }; chart: { runIds, quantity }. */
+    content: jsonb("content").notNull(),
+    collapsed: boolean("collapsed").notNull().default(false),
+    version: integer("version").notNull().default(1),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (table) => [index("study_block_study_id_idx").on(table.studyId, table.position)],
+);
+export type StudyBlock = typeof studyBlock.$inferSelect;

@@ -3,6 +3,7 @@
 import "server-only";
 import { parseSceneOrThrow } from "@/lib/fdtd/scene";
 import { getAuth, skipPersonalTeamFor } from "@/lib/server/auth";
+import { createBlock, listBlocksByStudyId } from "../queries/blocks";
 import { listScenesByStudyId, createScene } from "../queries/scenes";
 import { createStudy, listStudiesByTeamId } from "../queries/studies";
 import { addMembership, createTeam, getMembershipRole, getTeamBySlug } from "../queries/teams";
@@ -11,6 +12,27 @@ import { demoMembers, demoPassword, demoStudy, demoTeam } from "./demo-accounts"
 import designA from "./scenes/design-a-3m-reflective.json";
 import designB from "./scenes/design-b-4m-absorptive.json";
 import reference from "./scenes/reference-no-barrier.json";
+
+const demoNotes = {
+  brief: [
+    "## The question",
+    "",
+    "Residents of **Alder Row** (invented) report traffic noise from the near lane of Fernhill Road, about 40 m away. The council asks whether a barrier on the raised verge would bring the gardens and the first-floor windows down by a worthwhile margin.",
+    "",
+    "- Source: tyre noise of the near lane, modelled as a line source 0.5 m above the verge.",
+    "- Receivers: the middle of the gardens at 1.5 m, and the ground- and first-floor windows 1 m from the façade.",
+    "- Frequencies: up to 400 Hz, where the barrier's benefit is smallest and ray methods least reliable.",
+  ].join("\n"),
+  plan: [
+    "## Plan",
+    "",
+    "1. Run the reference and both designs; compare insertion loss per octave band at each receiver.",
+    "2. Check the 4 m design's absorptive face against reflections back towards the houses across the road.",
+    "3. Ask Priya to review the runs before the figures go into the report.",
+    "",
+    "_A 2D section assumes an infinitely long road and barrier: treat the figures as design guidance, not an assessment._",
+  ].join("\n"),
+};
 
 const demoScenes = [
   { data: reference, isReference: true, description: "Existing situation: raised verge, lawn, façade; no barrier. Insertion loss is measured against this." },
@@ -58,6 +80,10 @@ export async function seedDemo(): Promise<boolean> {
     studyId = (await createStudy({ teamId: team.id, createdBy: engineerId, input: demoStudy })).id;
     added = true;
   }
+  const notebookWasEmpty = (await listBlocksByStudyId({ studyId })).length === 0;
+  if (notebookWasEmpty) {
+    await createBlock({ studyId, authorId: engineerId, kind: "notes", content: { markdown: demoNotes.brief }, afterBlockId: null });
+  }
   const existingScenes = await listScenesByStudyId({ studyId });
   for (const [position, demo] of demoScenes.entries()) {
     const data = parseSceneOrThrow(demo.data);
@@ -72,6 +98,11 @@ export async function seedDemo(): Promise<boolean> {
       data,
       position,
     });
+    added = true;
+  }
+  if (notebookWasEmpty) {
+    await listBlocksByStudyId({ studyId });
+    await createBlock({ studyId, authorId: engineerId, kind: "notes", content: { markdown: demoNotes.plan }, afterBlockId: null });
     added = true;
   }
   return added;

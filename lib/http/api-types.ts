@@ -103,3 +103,20 @@ export interface SceneResponse {
   scene: SceneRecord;
   role: TeamRole;
 }
+
+export type BlockKind = "notes" | "scene" | "run" | "chart";
+
+export interface BlockItem {
+  id: string;
+  kind: BlockKind;
+  position: number;
+  content: unknown;
+  collapsed: boolean;
+  version: number;
+  updatedByName: string | null;
+  updatedAt: string;
+}
+
+export interface BlocksResponse {
+  blocks: BlockItem[];
+}

@@ -1,9 +1,10 @@
 // The one server-side gate: every route handler and page asks here who is calling and whether
 // their role in the owning team allows the action.
 import "server-only";
+import { getBlockById } from "@/db/queries/blocks";
 import { getSceneById } from "@/db/queries/scenes";
 import { getStudyById } from "@/db/queries/studies";
-import type { SceneRecord, StudyRecord } from "@/lib/http/api-types";
+import type { BlockItem, SceneRecord, StudyRecord } from "@/lib/http/api-types";
 import { getMembershipRole } from "@/db/queries/teams";
 import { decideAccess } from "@/lib/access/decide";
 import type { TeamAction, TeamRole } from "@/lib/access/roles";
@@ -72,4 +73,20 @@ export async function requireSceneAccess({
   const role = scene ? await getMembershipRole({ teamId: scene.teamId, userId: caller.userId }) : null;
   enforce(decideAccess({ signedIn: true, role, action }), "scene", action);
   return { scene: scene!, role: role! };
+}
+
+export async function requireBlockAccess({
+  caller,
+  blockId,
+  action,
+}: {
+  caller: Caller;
+  blockId: string;
+  action: TeamAction;
+}): Promise<{ block: BlockItem & { studyId: string }; study: StudyRecord; role: TeamRole }> {
+  const block = await getBlockById({ id: blockId });
+  const study = block ? await getStudyById({ id: block.studyId }) : null;
+  const role = study ? await getMembershipRole({ teamId: study.teamId, userId: caller.userId }) : null;
+  enforce(decideAccess({ signedIn: true, role, action }), "block", action);
+  return { block: block!, study: study!, role: role! };
 }
