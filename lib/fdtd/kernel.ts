@@ -14,9 +14,11 @@
 // entry writes them. Inside a PML the pressure is split, p = px + py, each part damped along its own axis:
 //   px = ax[i] px - bx[i] (vx[j][i+1] - vx[j][i]);  py = ay[j] py - by[j] (vy[j+1][i] - vy[j][i])
 // and each velocity component is damped along its own axis (tables per column and per row).
-// Every stored value passes through (x + F) - F in float32, which flushes magnitudes below about
-// F 2^-24 to zero: float32 subnormals ahead of the wavefront are slow on x86 and WebAssembly cannot
-// switch on flush-to-zero.
+// Float32 subnormals (below 1.2e-38) appear ahead of the wavefront and in decaying regions and are slow
+// on x86; WebAssembly cannot switch on flush-to-zero. So every FLUSH_INTERVAL steps `flushStrip` passes
+// each stored value through (x + F) - F in float32, which rounds it to a multiple of the quantum
+// (the float32 spacing at F) and zeroes anything smaller. Between two flushes a value at the quantum
+// cannot decay by the 1e-15 or more it would need to become subnormal (see state.ts for F).
 import {
   FLAG_HETEROGENEOUS,
   FLAG_LEVEL_MAPS,
@@ -69,7 +71,12 @@ export interface StepKernel {
   sweepStrip(y0: number, y1: number): void;
   /** Pressure row y1 - 1, once the strip above has swept. */
   finishStrip(y0: number, y1: number): void;
+  /** Flushes tiny values of rows [y0, y1) of every field (and y-velocity row ny with the top strip). */
+  flushStrip(y0: number, y1: number): void;
 }
+
+/** Steps between two flushes of tiny values. */
+export const FLUSH_INTERVAL = 16;
 
 const fr = Math.fround;
 
@@ -182,82 +189,58 @@ function readContext(buffer: ArrayBufferLike): Context {
 // `px` are the starts of one row; i runs over [i0, i1). Gains and decays are float32 values.
 
 /** vx[i] = decay vx[i] - gain (p[i] - p[i-1]) with scalar decay and gain (uniform medium). */
-export function velocityXUniform(f: Float32Array, vx: number, p: number, i0: number, i1: number, decay: number, gain: number, flush: number): void {
+export function velocityXUniform(f: Float32Array, vx: number, p: number, i0: number, i1: number, decay: number, gain: number): void {
   if (decay === 1) {
-    for (let i = i0; i < i1; i++) {
-      const x = fr(f[vx + i]! - fr(gain * fr(f[p + i]! - f[p + i - 1]!)));
-      f[vx + i] = fr(fr(x + flush) - flush);
-    }
+    for (let i = i0; i < i1; i++) f[vx + i] = fr(f[vx + i]! - fr(gain * fr(f[p + i]! - f[p + i - 1]!)));
   } else {
-    for (let i = i0; i < i1; i++) {
-      const x = fr(fr(decay * f[vx + i]!) - fr(gain * fr(f[p + i]! - f[p + i - 1]!)));
-      f[vx + i] = fr(fr(x + flush) - flush);
-    }
+    for (let i = i0; i < i1; i++) f[vx + i] = fr(fr(decay * f[vx + i]!) - fr(gain * fr(f[p + i]! - f[p + i - 1]!)));
   }
 }
 
 /** As velocityXUniform with the gain per face from a row of a gain field starting at `g` (medium regions). */
-export function velocityXField(f: Float32Array, vx: number, p: number, g: number, i0: number, i1: number, decay: number, flush: number): void {
-  for (let i = i0; i < i1; i++) {
-    const x = fr(fr(decay * f[vx + i]!) - fr(f[g + i]! * fr(f[p + i]! - f[p + i - 1]!)));
-    f[vx + i] = fr(fr(x + flush) - flush);
-  }
+export function velocityXField(f: Float32Array, vx: number, p: number, g: number, i0: number, i1: number, decay: number): void {
+  for (let i = i0; i < i1; i++) f[vx + i] = fr(fr(decay * f[vx + i]!) - fr(f[g + i]! * fr(f[p + i]! - f[p + i - 1]!)));
 }
 
 /** As velocityXUniform with decay and gain per column from tables starting at `decays`, `gains` (PML). */
-export function velocityXTable(f: Float32Array, vx: number, p: number, decays: number, gains: number, i0: number, i1: number, flush: number): void {
-  for (let i = i0; i < i1; i++) {
-    const x = fr(fr(f[decays + i]! * f[vx + i]!) - fr(f[gains + i]! * fr(f[p + i]! - f[p + i - 1]!)));
-    f[vx + i] = fr(fr(x + flush) - flush);
-  }
+export function velocityXTable(f: Float32Array, vx: number, p: number, decays: number, gains: number, i0: number, i1: number): void {
+  for (let i = i0; i < i1; i++) f[vx + i] = fr(fr(f[decays + i]! * f[vx + i]!) - fr(f[gains + i]! * fr(f[p + i]! - f[p + i - 1]!)));
 }
 
 /** vy[i] = decay vy[i] - gain (p[i] - pBelow[i]) with scalar decay and gain. */
-export function velocityYUniform(f: Float32Array, vy: number, p: number, pBelow: number, i0: number, i1: number, decay: number, gain: number, flush: number): void {
+export function velocityYUniform(f: Float32Array, vy: number, p: number, pBelow: number, i0: number, i1: number, decay: number, gain: number): void {
   if (decay === 1) {
-    for (let i = i0; i < i1; i++) {
-      const x = fr(f[vy + i]! - fr(gain * fr(f[p + i]! - f[pBelow + i]!)));
-      f[vy + i] = fr(fr(x + flush) - flush);
-    }
+    for (let i = i0; i < i1; i++) f[vy + i] = fr(f[vy + i]! - fr(gain * fr(f[p + i]! - f[pBelow + i]!)));
   } else {
-    for (let i = i0; i < i1; i++) {
-      const x = fr(fr(decay * f[vy + i]!) - fr(gain * fr(f[p + i]! - f[pBelow + i]!)));
-      f[vy + i] = fr(fr(x + flush) - flush);
-    }
+    for (let i = i0; i < i1; i++) f[vy + i] = fr(fr(decay * f[vy + i]!) - fr(gain * fr(f[p + i]! - f[pBelow + i]!)));
   }
 }
 
 /** As velocityYUniform with the gain per face from a gain-field row at `g`. */
-export function velocityYField(f: Float32Array, vy: number, p: number, pBelow: number, g: number, i0: number, i1: number, decay: number, flush: number): void {
-  for (let i = i0; i < i1; i++) {
-    const x = fr(fr(decay * f[vy + i]!) - fr(f[g + i]! * fr(f[p + i]! - f[pBelow + i]!)));
-    f[vy + i] = fr(fr(x + flush) - flush);
-  }
+export function velocityYField(f: Float32Array, vy: number, p: number, pBelow: number, g: number, i0: number, i1: number, decay: number): void {
+  for (let i = i0; i < i1; i++) f[vy + i] = fr(fr(decay * f[vy + i]!) - fr(f[g + i]! * fr(f[p + i]! - f[pBelow + i]!)));
 }
 
 /** p[i] = decay p[i] - gain (vx[i+1] - vx[i] + vyAbove[i] - vy[i]) with scalar decay and gain. */
-export function pressureUniform(f: Float32Array, p: number, vx: number, vy: number, vyAbove: number, i0: number, i1: number, decay: number, gain: number, flush: number): void {
+export function pressureUniform(f: Float32Array, p: number, vx: number, vy: number, vyAbove: number, i0: number, i1: number, decay: number, gain: number): void {
   if (decay === 1) {
     for (let i = i0; i < i1; i++) {
       const divergence = fr(fr(f[vx + i + 1]! - f[vx + i]!) + fr(f[vyAbove + i]! - f[vy + i]!));
-      const x = fr(f[p + i]! - fr(gain * divergence));
-      f[p + i] = fr(fr(x + flush) - flush);
+      f[p + i] = fr(f[p + i]! - fr(gain * divergence));
     }
   } else {
     for (let i = i0; i < i1; i++) {
       const divergence = fr(fr(f[vx + i + 1]! - f[vx + i]!) + fr(f[vyAbove + i]! - f[vy + i]!));
-      const x = fr(fr(decay * f[p + i]!) - fr(gain * divergence));
-      f[p + i] = fr(fr(x + flush) - flush);
+      f[p + i] = fr(fr(decay * f[p + i]!) - fr(gain * divergence));
     }
   }
 }
 
 /** As pressureUniform with the gain per cell from a gain-field row at `g`. */
-export function pressureField(f: Float32Array, p: number, vx: number, vy: number, vyAbove: number, g: number, i0: number, i1: number, decay: number, flush: number): void {
+export function pressureField(f: Float32Array, p: number, vx: number, vy: number, vyAbove: number, g: number, i0: number, i1: number, decay: number): void {
   for (let i = i0; i < i1; i++) {
     const divergence = fr(fr(f[vx + i + 1]! - f[vx + i]!) + fr(f[vyAbove + i]! - f[vy + i]!));
-    const x = fr(fr(decay * f[p + i]!) - fr(f[g + i]! * divergence));
-    f[p + i] = fr(fr(x + flush) - flush);
+    f[p + i] = fr(fr(decay * f[p + i]!) - fr(f[g + i]! * divergence));
   }
 }
 
@@ -278,16 +261,14 @@ export function pressureSplit(
   i1: number,
   ay: number,
   by: number,
-  flush: number,
 ): void {
   for (let i = i0; i < i1; i++) {
     const oldX = f[px + i]!;
     const oldY = fr(f[p + i]! - oldX);
-    let newX = fr(fr(f[ax + i]! * oldX) - fr(f[bx + i]! * fr(f[vx + i + 1]! - f[vx + i]!)));
-    newX = fr(fr(newX + flush) - flush);
+    const newX = fr(fr(f[ax + i]! * oldX) - fr(f[bx + i]! * fr(f[vx + i + 1]! - f[vx + i]!)));
     const newY = fr(fr(ay * oldY) - fr(by * fr(f[vyAbove + i]! - f[vy + i]!)));
     f[px + i] = newX;
-    f[p + i] = fr(fr(fr(newX + newY) + flush) - flush);
+    f[p + i] = fr(newX + newY);
   }
 }
 
@@ -309,22 +290,19 @@ function velocityRow(k: Context, j: number): void {
   const vx = k.velocityX + j * stride;
   const p = k.pressure + j * stride;
   const pmlRow = j < k.pmlBottom || j >= k.ny - k.pmlTop;
-  if (pmlRow) {
-    velocityXTable(f, vx, p, k.colFaceDecay, k.colFaceGain, 1, nx, k.flushVelocity);
-  } else {
-    // Faces 1 .. pmlLeft-1 and nx-pmlRight+1 .. nx-1 lie inside a side PML; the interface faces have zero damping.
-    const iL = Math.max(1, k.pmlLeft);
-    const iR = k.pmlRight > 0 ? nx - k.pmlRight + 1 : nx;
-    if (iL > 1) velocityXTable(f, vx, p, k.colFaceDecay, k.colFaceGain, 1, iL, k.flushVelocity);
-    if (k.heterogeneous) velocityXField(f, vx, p, k.faceGainX + j * stride, iL, iR, k.decay, k.flushVelocity);
-    else velocityXUniform(f, vx, p, iL, iR, k.decay, k.velocityGain, k.flushVelocity);
-    if (iR < nx) velocityXTable(f, vx, p, k.colFaceDecay, k.colFaceGain, iR, nx, k.flushVelocity);
-  }
+  // x-faces 1 .. pmlLeft-1 and nx-pmlRight+1 .. nx-1 lie inside a side PML; the interface faces and the
+  // columns between have no x damping (in a bottom or top PML row too: their medium is the background).
+  const iL = Math.max(1, k.pmlLeft);
+  const iR = k.pmlRight > 0 ? nx - k.pmlRight + 1 : nx;
+  if (iL > 1) velocityXTable(f, vx, p, k.colFaceDecay, k.colFaceGain, 1, iL);
+  if (k.heterogeneous && !pmlRow) velocityXField(f, vx, p, k.faceGainX + j * stride, iL, iR, k.decay);
+  else velocityXUniform(f, vx, p, iL, iR, k.decay, k.velocityGain);
+  if (iR < nx) velocityXTable(f, vx, p, k.colFaceDecay, k.colFaceGain, iR, nx);
   if (j >= 1) {
     const vy = k.velocityY + j * stride;
-    if (pmlRow) velocityYUniform(f, vy, p, p - stride, 0, nx, f[k.rowFaceDecay + j]!, f[k.rowFaceGain + j]!, k.flushVelocity);
-    else if (k.heterogeneous) velocityYField(f, vy, p, p - stride, k.faceGainY + j * stride, 0, nx, k.decay, k.flushVelocity);
-    else velocityYUniform(f, vy, p, p - stride, 0, nx, k.decay, k.velocityGain, k.flushVelocity);
+    if (pmlRow) velocityYUniform(f, vy, p, p - stride, 0, nx, f[k.rowFaceDecay + j]!, f[k.rowFaceGain + j]!);
+    else if (k.heterogeneous) velocityYField(f, vy, p, p - stride, k.faceGainY + j * stride, 0, nx, k.decay);
+    else velocityYUniform(f, vy, p, p - stride, 0, nx, k.decay, k.velocityGain);
   }
 }
 
@@ -349,14 +327,14 @@ function pressureRow(k: Context, j: number): void {
   if (k.levelMaps) accumulateLevels(f, k.d, p, k.peak + j * stride, k.squareSum + j * stride, nx);
   const pmlRow = j < k.pmlBottom || j >= k.ny - k.pmlTop;
   if (pmlRow) {
-    pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, nx, f[k.rowCellDecay + j]!, f[k.rowCellGain + j]!, k.flushPressure);
+    pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, nx, f[k.rowCellDecay + j]!, f[k.rowCellGain + j]!);
   } else {
     const iL = k.pmlLeft;
     const iR = nx - k.pmlRight;
-    if (iL > 0) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, iL, k.decay, k.pressureGain, k.flushPressure);
-    if (k.heterogeneous) pressureField(f, p, vx, vy, vyAbove, k.cellGain + j * stride, iL, iR, k.decay, k.flushPressure);
-    else pressureUniform(f, p, vx, vy, vyAbove, iL, iR, k.decay, k.pressureGain, k.flushPressure);
-    if (iR < nx) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, iR, nx, k.decay, k.pressureGain, k.flushPressure);
+    if (iL > 0) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, iL, k.decay, k.pressureGain);
+    if (k.heterogeneous) pressureField(f, p, vx, vy, vyAbove, k.cellGain + j * stride, iL, iR, k.decay);
+    else pressureUniform(f, p, vx, vy, vyAbove, iL, iR, k.decay, k.pressureGain);
+    if (iR < nx) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, iR, nx, k.decay, k.pressureGain);
   }
   // Solid cells behind an impedance face are held at zero so the solid interior stays silent.
   const { n } = k;
@@ -367,6 +345,22 @@ function pressureRow(k: Context, j: number): void {
     f[k.pressure + cell] = 0;
     if (k.hasPml) f[k.pmlPressureX + cell] = 0;
   }
+}
+
+/** x = (x + flush) - flush in float32 over `count` values from `start`: tiny values to zero, the rest to the quantum. */
+export function flushRow(f: Float32Array, start: number, count: number, flush: number): void {
+  for (let i = start; i < start + count; i++) f[i] = fr(fr(f[i]! + flush) - flush);
+}
+
+function flushRows(k: Context, y0: number, y1: number): void {
+  const { f, nx, stride } = k;
+  for (let j = y0; j < y1; j++) {
+    flushRow(f, k.pressure + j * stride, nx, k.flushPressure);
+    if (k.hasPml) flushRow(f, k.pmlPressureX + j * stride, nx, k.flushPressure);
+    flushRow(f, k.velocityX + j * stride, nx + 1, k.flushVelocity);
+    flushRow(f, k.velocityY + j * stride, nx, k.flushVelocity);
+  }
+  if (y1 === k.ny && y1 > y0) flushRow(f, k.velocityY + k.ny * stride, nx, k.flushVelocity);
 }
 
 /** The TypeScript reference kernel over a state buffer whose parameter block is already written. */
@@ -384,6 +378,9 @@ export function createTypeScriptKernel(buffer: ArrayBufferLike): StepKernel {
     },
     finishStrip(y0: number, y1: number): void {
       if (y1 > y0) pressureRow(k, y1 - 1);
+    },
+    flushStrip(y0: number, y1: number): void {
+      flushRows(k, y0, y1);
     },
   };
 }

@@ -9,6 +9,9 @@
 /** Bytes kept free at the start of the buffer for the WebAssembly module's own data. */
 export const RESERVED_BYTES = 65_536;
 
+/** Bytes between consecutive arrays (see planLayout). */
+const ARRAY_GAP_BYTES = 1040;
+
 /** Row length in elements: nx + 1 (room for the last x-face), rounded up to 4 floats (16 bytes, one SIMD vector). */
 export function rowStride(nx: number): number {
   return Math.ceil((nx + 1) / 4) * 4;
@@ -70,7 +73,9 @@ export function planLayout(request: LayoutRequest): StateLayout {
   let cursor = RESERVED_BYTES;
   const take = (bytes: number): number => {
     const at = cursor;
-    cursor += Math.ceil(bytes / 16) * 16;
+    // The gap staggers arrays of equal size across 4 KiB pages: without it p[j][i], vx[j][i] and vy[j][i]
+    // share their low 12 address bits, and loads after stores to them stall on 4K aliasing.
+    cursor += Math.ceil(bytes / 16) * 16 + ARRAY_GAP_BYTES;
     return at;
   };
   const f32 = (count: number) => take(4 * count) / 4;

@@ -4,7 +4,7 @@
 /**
  * Plane-wave reflection coefficient at normal incidence of a locally reacting surface with real
  * normalised impedance z = Z / (rho c): R = (z - 1) / (z + 1)
- * (Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., section 6.2).
+ * (Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., ch. 6).
  * z = Infinity (rigid) gives R = 1; z = 1 gives R = 0.
  */
 export function reflectionFromImpedance(z: number): number {

@@ -152,6 +152,7 @@ export function rasteriseScene(scene: Scene, grid: GridPlan): RasterisedScene {
     const edge = scene.boundary[side];
     if (edge.kind === "pml") continue;
     const z = treatmentImpedance(edge);
+    if (z === Infinity) continue;
     const along = side === "left" || side === "right" ? ny : nx;
     for (let k = 0; k < along; k++) {
       const face = outerFace(side, k, nx, ny, z);
@@ -173,7 +174,8 @@ export function rasteriseScene(scene: Scene, grid: GridPlan): RasterisedScene {
       }
       // Rigid outer edges have no entries of their own: add the lined part of them.
       for (const side of SIDES) {
-        if (scene.boundary[side].kind !== "rigid") continue;
+        const edge = scene.boundary[side];
+        if (edge.kind === "pml" || treatmentImpedance(edge) !== Infinity) continue;
         const along = side === "left" || side === "right" ? ny : nx;
         for (let k = 0; k < along; k++) {
           const face = outerFace(side, k, nx, ny, z);

@@ -10,6 +10,9 @@ export const PML_PROFILE_ORDER = 3;
 /** Design reflection of the PML at normal incidence in the continuum, exp(-2 int sigma dx / c). */
 export const PML_DESIGN_REFLECTION = 1e-5;
 
+/** Flush offset relative to the largest pressure a source adds in one step (see initialiseState). */
+export const FLUSH_FRACTION = 1e-16;
+
 /** 20 log10(e): decibels per neper. */
 const DB_PER_NEPER = 20 / Math.LN10;
 
@@ -86,15 +89,17 @@ export function initialiseState(buffer: ArrayBufferLike, layout: StateLayout, gr
   const uniformVelocity = dampedCoefficients(sigma0, dt, velocityGainRaw);
   const uniformPressure = dampedCoefficients(sigma0, dt, pressureGainRaw);
 
-  // The flush level sits about 400 dB below the largest per-step source increment: far below any
-  // physical signal, far above float32 subnormals (1.2e-38) even after multiplication by a gain.
+  // Flush offset F = 1e-16 of the largest per-step source increment: every FLUSH_INTERVAL steps values
+  // become multiples of about F 2^-23 (some 470 dB below that increment, far below any physical signal),
+  // and a value at that quantum needs a decay by 1e-15 or more to reach the float32 subnormals (1.2e-38),
+  // which it cannot undergo in a few steps.
   const scale = sourceScale > 0 && Number.isFinite(sourceScale) ? sourceScale : 1;
   const scalars: KernelScalars = {
     decay: uniformPressure.decay,
     velocityGain: uniformVelocity.gain,
     pressureGain: uniformPressure.gain,
-    flushPressure: Math.fround(1e-20 * scale),
-    flushVelocity: Math.fround((1e-20 * scale) / (rho * c)),
+    flushPressure: Math.fround(FLUSH_FRACTION * scale),
+    flushVelocity: Math.fround((FLUSH_FRACTION * scale) / (rho * c)),
   };
 
   if (layout.hasPml) {

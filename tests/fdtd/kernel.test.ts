@@ -2,10 +2,16 @@
 // boundary rows, degenerate sizes, and the strip split.
 import { describe, expect, it } from "vitest";
 
-import { pressureSplit, pressureUniform, velocityXTable, velocityXUniform } from "@/lib/fdtd/kernel";
-import { Simulation, splitRows } from "@/lib/fdtd/simulation";
+import { flushRow, pressureSplit, pressureUniform, velocityXTable, velocityXUniform } from "@/lib/fdtd/kernel";
+import type { Scene } from "@/lib/fdtd/scene";
+import { Simulation, splitRows, typeScriptKernelProvider } from "@/lib/fdtd/simulation";
 
 import { everyFeatureScene, unitGridScene } from "./helpers";
+
+/** These tests are about the TypeScript reference kernel (wasm.test.ts holds the SIMD kernel to it). */
+function referenceSimulation(scene: Scene): Simulation {
+  return new Simulation(scene, { kernel: typeScriptKernelProvider() });
+}
 
 function at(field: Float32Array, stride: number, i: number, j: number): number {
   return field[j * stride + i]!;
@@ -13,7 +19,7 @@ function at(field: Float32Array, stride: number, i: number, j: number): number {
 
 describe("one step on a 3 x 3 rigid box (c = rho = h = 1, Courant 0.5: both gains 0.5)", () => {
   it("moves a unit pressure at the centre into its four faces and neighbours as the update equations say", () => {
-    const sim = new Simulation(unitGridScene(3, 3));
+    const sim = referenceSimulation(unitGridScene(3, 3));
     const { pressure, velocityX, velocityY, stride } = sim.fields();
     pressure[1 * stride + 1] = 1;
     sim.advance();
@@ -33,7 +39,7 @@ describe("one step on a 3 x 3 rigid box (c = rho = h = 1, Courant 0.5: both gain
   });
 
   it("keeps the outer (rigid) faces at zero and the total pressure sum constant", () => {
-    const sim = new Simulation(unitGridScene(3, 3));
+    const sim = referenceSimulation(unitGridScene(3, 3));
     const { pressure, velocityX, velocityY, stride } = sim.fields();
     pressure[1 * stride + 1] = 1;
     for (let n = 0; n < 25; n++) sim.advance();
@@ -52,7 +58,7 @@ describe("one step on a 3 x 3 rigid box (c = rho = h = 1, Courant 0.5: both gain
   });
 
   it("steps a one-cell grid without touching anything", () => {
-    const sim = new Simulation(unitGridScene(1, 1));
+    const sim = referenceSimulation(unitGridScene(1, 1));
     const { pressure } = sim.fields();
     pressure[0] = 2;
     sim.advance();
@@ -73,8 +79,8 @@ describe("row kernels", () => {
       g[gains + i] = Math.fround(0.013);
     }
     // vx row at 0, p row at stride
-    velocityXUniform(f, 0, stride, 1, 33, 1, Math.fround(0.013), 1e-20);
-    velocityXTable(g, 0, stride, decays, gains, 1, 33, 1e-20);
+    velocityXUniform(f, 0, stride, 1, 33, 1, Math.fround(0.013));
+    velocityXTable(g, 0, stride, decays, gains, 1, 33);
     expect(Array.from(f.subarray(0, stride))).toEqual(Array.from(g.subarray(0, stride)));
   });
 
@@ -88,8 +94,8 @@ describe("row kernels", () => {
       g[6 * stride + i] = 1;
       g[7 * stride + i] = Math.fround(120);
     }
-    pressureUniform(f, 0, stride, 2 * stride, 3 * stride, 0, 20, 1, Math.fround(120), 1e-20);
-    pressureSplit(g, 0, 4 * stride, stride, 2 * stride, 3 * stride, 6 * stride, 7 * stride, 0, 20, 1, Math.fround(120), 1e-20);
+    pressureUniform(f, 0, stride, 2 * stride, 3 * stride, 0, 20, 1, Math.fround(120));
+    pressureSplit(g, 0, 4 * stride, stride, 2 * stride, 3 * stride, 6 * stride, 7 * stride, 0, 20, 1, Math.fround(120));
     // The split form adds the x and y parts in another order: equal to a few float32 roundings of the terms.
     for (let i = 0; i < 20; i++) {
       const terms = Math.abs(f[i]!) + 120 * (Math.abs(f[stride + i + 1]! - f[stride + i]!) + Math.abs(f[3 * stride + i]! - f[2 * stride + i]!));
@@ -97,13 +103,27 @@ describe("row kernels", () => {
     }
   });
 
-  it("flushes values below the flush level to exactly zero and leaves larger ones unchanged", () => {
-    const f = new Float32Array([0, 1e-30, 3e-39, 0.25]);
-    // vx[i] -= 0 * (...): only the flush (x + F) - F acts, F = 1e-20 in float32. vx and p rows both at 0.
-    velocityXUniform(f, 0, 0, 1, 4, 1, 0, Math.fround(1e-20));
-    expect(f[1]).toBe(0);
-    expect(f[2]).toBe(0);
-    expect(f[3]).toBe(0.25);
+  it("flushes values below the flush quantum to zero, rounds small ones to the quantum and leaves large ones unchanged", () => {
+    const f = new Float32Array([1e-30, 3e-39, 0.25, 1e-27, -2e-39]);
+    // F = 1e-20 lies in [2^-67, 2^-66), so the quantum (float32 spacing at F) is 2^-90 = 8.1e-28.
+    flushRow(f, 0, 5, Math.fround(1e-20));
+    expect(Array.from(f)).toEqual([0, 0, 0.25, 2 ** -90, 0]);
+  });
+
+  it("flushes every field's tiny values every few steps, so no float32 subnormal survives a run", () => {
+    const sim = referenceSimulation(unitGridScene(6, 5));
+    const { pressure, velocityX, velocityY, stride, nx, ny } = sim.fields();
+    // Every stored value, the padding at the row ends excepted.
+    const entries = (field: Float32Array, rows: number, perRow: number) => {
+      const at: number[] = [];
+      for (let j = 0; j < rows; j++) for (let i = 0; i < perRow; i++) at.push(j * stride + i);
+      return at.map((k) => ({ field, k }));
+    };
+    const all = [...entries(pressure, ny, nx), ...entries(velocityX, ny, nx + 1), ...entries(velocityY, ny + 1, nx)];
+    for (const { field, k } of all) field[k] = k % 2 ? 1e-39 : -3e-40;
+    for (let n = 0; n < 16; n++) sim.advance();
+    const subnormal = (x: number) => x !== 0 && Math.abs(x) < 1.1754944e-38;
+    expect(all.filter(({ field, k }) => subnormal(field[k]!))).toEqual([]);
   });
 });
 
@@ -122,9 +142,9 @@ describe("strips", () => {
 
   it("stepping by strips gives fields bit-identical to one strip, with every feature switched on", () => {
     const scene = everyFeatureScene();
-    const whole = new Simulation(scene);
-    const three = new Simulation(scene);
-    const many = new Simulation(scene);
+    const whole = referenceSimulation(scene);
+    const three = referenceSimulation(scene);
+    const many = referenceSimulation(scene);
     const ny = whole.layout.ny;
     const threeStrips = splitRows(ny, 3);
     // Strips of one and two rows and a strip ending inside the top PML.
@@ -143,7 +163,7 @@ describe("strips", () => {
 
   it("lives in a caller-supplied SharedArrayBuffer", () => {
     const scene = everyFeatureScene();
-    const probe = new Simulation(scene);
+    const probe = referenceSimulation(scene);
     const shared = new SharedArrayBuffer(probe.layout.byteLength);
     const sim = new Simulation(scene, { buffer: shared });
     for (let n = 0; n < 40; n++) {

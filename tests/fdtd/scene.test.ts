@@ -120,7 +120,8 @@ describe("sceneJsonSchema", () => {
 });
 
 describe("materials", () => {
-  // R = (z - 1)/(z + 1), alpha = 1 - R^2: Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., sec. 6.2.
+  // Normal incidence on a surface of specific impedance Z = z rho c: R = (z - 1)/(z + 1), alpha = 1 - R^2
+  // (Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., ch. 6).
   it("converts impedance to reflection and absorption by the normal-incidence formulas", () => {
     expect(reflectionFromImpedance(1)).toBe(0);
     expect(reflectionFromImpedance(3)).toBeCloseTo(0.5, 15);

@@ -82,14 +82,15 @@ describe("free field (h = 1 cm, Ricker at 20 cells per wavelength at its peak fr
   });
 
   it("loses 3 dB per doubling of distance (line source), within 0.5 dB", () => {
-    // Cylindrical spreading p ~ 1/sqrt(r): 10 log10(2) = 3.01 dB (Morse & Ingard, Theoretical Acoustics, sec. 7.3, far field).
-    expect(20 * Math.log10(peakOf(far!) / peakOf(near!))).toBeCloseTo(-3.01, 0);
+    // Far field of a line source: H0(kr) ~ sqrt(2 / (pi k r)) e^{i(kr - pi/4)} (Abramowitz & Stegun, Handbook of
+    // Mathematical Functions, 9.2.3), so |p| ~ r^(-1/2): 10 log10(2) = 3.01 dB per doubling. At 0.4 and 0.8 m,
+    // kr = 13 and 25: the next term of the expansion changes the ratio by under 0.1 dB.
     expect(Math.abs(20 * Math.log10(peakOf(far!) / peakOf(near!)) + 3.01)).toBeLessThan(0.5);
     expect(Math.abs(20 * Math.log10(peakOf(diagonal!) / peakOf(near!)) + 3.01)).toBeLessThan(0.5);
   });
 });
 
-describe("rigid room", () => {
+describe("rigid room (h = 2 cm, Ricker at 15 cells per wavelength at its peak frequency)", () => {
   const room = (walls: NonNullable<Parameters<typeof buildScene>[0]["boundary"]>["left"]) => {
     const h = 0.02;
     return buildScene({
@@ -184,7 +185,7 @@ describe("one-cell duct (rigid top and bottom: exact plane waves), h = 1 cm, 20 
   const dt = free.grid.timeStep;
 
   it.each([1, 2, 5, 0.5, 20])("reflects from an impedance end z = %s with R = (z - 1)/(z + 1) within 0.02 at f0", (z) => {
-    // Normal-incidence reflection of a locally reacting surface: Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., sec. 6.2.
+    // Normal-incidence reflection of a locally reacting surface: Kinsler, Frey, Coppens & Sanders, Fundamentals of Acoustics, 4th ed., ch. 6.
     const incident = free.receivers[1]!.pressure;
     const total = runScene(duct({ kind: "impedance", normalisedImpedance: z }, 6)).receivers[1]!.pressure;
     const reflected = total.map((v, k) => v - incident[k]!);
@@ -218,7 +219,8 @@ describe("run control", () => {
     });
 
   it("stops with an error naming the time step when the Courant number exceeds the 2D limit", () => {
-    const run = () => new Simulation(small(), { unsafeCourantNumber: 0.75 }).run();
+    const longer = { ...small(), duration: { kind: "time" as const, seconds: 0.01 } };
+    const run = () => new Simulation(longer, { unsafeCourantNumber: 0.75 }).run();
     expect(run).toThrow(SimulationInstabilityError);
     expect(run).toThrow(/Courant number 0.75/);
   });

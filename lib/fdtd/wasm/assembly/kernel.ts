@@ -6,10 +6,11 @@
 // bit-identical. Four cells per 128-bit vector along a row (i runs fastest); a scalar tail finishes
 // each row segment. Memory is imported: the caller lays the state out in it (lib/fdtd/layout.ts).
 //
-// One step, with a = decay, gv = velocity gain dt/(rho h), gp = pressure gain rho c^2 dt / h, F = flush:
+// One step, with a = decay, gv = velocity gain dt/(rho h), gp = pressure gain rho c^2 dt / h:
 //   vx[j][i] = a vx[j][i] - gv (p[j][i] - p[j][i-1]),  vy[j][i] = a vy[j][i] - gv (p[j][i] - p[j-1][i])
 //   p[j][i]  = a p[j][i]  - gp (vx[j][i+1] - vx[j][i] + vy[j+1][i] - vy[j][i])
-// each stored value passed through (x + F) - F (flushes float32 subnormals, which are slow on x86).
+// Every few steps flushStrip passes each stored value through (x + F) - F, which zeroes float32
+// subnormals (slow on x86; WebAssembly has no flush-to-zero mode).
 
 // Parameter block (lib/fdtd/kernel-params.ts): byte offset and slots.
 const PARAMS: usize = 1024;
@@ -108,163 +109,198 @@ function at(index: i32): usize {
 // Row kernels; vx, vy, p, px, g are element offsets of a row start; i runs over [i0, i1).
 
 /** vx[i] = decay vx[i] - gain (p[i] - p[i-1]); `g` >= 0: gain per face from a field row instead. */
-function velocityX(vx: i32, p: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32, flush: f32): void {
-  const vF = f32x4.splat(flush);
+function velocityX(vx: i32, p: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32): void {
   const vA = f32x4.splat(decay);
   const vG = f32x4.splat(gain);
   let i = i0;
   if (g < 0 && decay == 1.0) {
-    for (; i + 4 <= i1; i += 4) {
-      const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(p + i - 1)));
-      const x = f32x4.sub(v128.load(at(vx + i)), f32x4.mul(vG, d));
-      v128.store(at(vx + i), f32x4.sub(f32x4.add(x, vF), vF));
+    let pp = at(p + i - 1);
+    let vp = at(vx + i);
+    const vend = at(vx + i1 - 3);
+    const vend2 = at(vx + i1 - 7);
+    for (; vp < vend2; vp += 32, pp += 32) {
+      const d = f32x4.sub(v128.load(pp, 4), v128.load(pp));
+      const x = f32x4.sub(v128.load(vp), f32x4.mul(vG, d));
+      const d2 = f32x4.sub(v128.load(pp, 20), v128.load(pp, 16));
+      const x2 = f32x4.sub(v128.load(vp, 16), f32x4.mul(vG, d2));
+      v128.store(vp, x);
+      v128.store(vp, x2, 16);
     }
+    for (; vp < vend; vp += 16, pp += 16) {
+      const d = f32x4.sub(v128.load(pp, 4), v128.load(pp));
+      const x = f32x4.sub(v128.load(vp), f32x4.mul(vG, d));
+      v128.store(vp, x);
+    }
+    i = <i32>((vp >> 2) - <usize>vx);
     for (; i < i1; i++) {
       const x: f32 = load<f32>(at(vx + i)) - gain * (load<f32>(at(p + i)) - load<f32>(at(p + i - 1)));
-      store<f32>(at(vx + i), (x + flush) - flush);
+      store<f32>(at(vx + i), x);
     }
   } else if (g < 0) {
     for (; i + 4 <= i1; i += 4) {
       const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(p + i - 1)));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(vx + i))), f32x4.mul(vG, d));
-      v128.store(at(vx + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(vx + i), x);
     }
     for (; i < i1; i++) {
       const x: f32 = decay * load<f32>(at(vx + i)) - gain * (load<f32>(at(p + i)) - load<f32>(at(p + i - 1)));
-      store<f32>(at(vx + i), (x + flush) - flush);
+      store<f32>(at(vx + i), x);
     }
   } else {
     for (; i + 4 <= i1; i += 4) {
       const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(p + i - 1)));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(vx + i))), f32x4.mul(v128.load(at(g + i)), d));
-      v128.store(at(vx + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(vx + i), x);
     }
     for (; i < i1; i++) {
       const x: f32 = decay * load<f32>(at(vx + i)) - load<f32>(at(g + i)) * (load<f32>(at(p + i)) - load<f32>(at(p + i - 1)));
-      store<f32>(at(vx + i), (x + flush) - flush);
+      store<f32>(at(vx + i), x);
     }
   }
 }
 
 /** vx[i] = decays[i] vx[i] - gains[i] (p[i] - p[i-1]): PML columns. */
-function velocityXTable(vx: i32, p: i32, decays: i32, gains: i32, i0: i32, i1: i32, flush: f32): void {
-  const vF = f32x4.splat(flush);
+function velocityXTable(vx: i32, p: i32, decays: i32, gains: i32, i0: i32, i1: i32): void {
   let i = i0;
   for (; i + 4 <= i1; i += 4) {
     const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(p + i - 1)));
     const x = f32x4.sub(f32x4.mul(v128.load(at(decays + i)), v128.load(at(vx + i))), f32x4.mul(v128.load(at(gains + i)), d));
-    v128.store(at(vx + i), f32x4.sub(f32x4.add(x, vF), vF));
+    v128.store(at(vx + i), x);
   }
   for (; i < i1; i++) {
     const x: f32 = load<f32>(at(decays + i)) * load<f32>(at(vx + i)) - load<f32>(at(gains + i)) * (load<f32>(at(p + i)) - load<f32>(at(p + i - 1)));
-    store<f32>(at(vx + i), (x + flush) - flush);
+    store<f32>(at(vx + i), x);
   }
 }
 
 /** vy[i] = decay vy[i] - gain (p[i] - pBelow[i]); `g` >= 0: gain per face from a field row. */
-function velocityY(vy: i32, p: i32, pBelow: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32, flush: f32): void {
-  const vF = f32x4.splat(flush);
+function velocityY(vy: i32, p: i32, pBelow: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32): void {
   const vA = f32x4.splat(decay);
   const vG = f32x4.splat(gain);
   let i = i0;
   if (g < 0 && decay == 1.0) {
-    for (; i + 4 <= i1; i += 4) {
-      const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(pBelow + i)));
-      const x = f32x4.sub(v128.load(at(vy + i)), f32x4.mul(vG, d));
-      v128.store(at(vy + i), f32x4.sub(f32x4.add(x, vF), vF));
+    const off = at(pBelow) - at(p);
+    const voff = at(vy) - at(p);
+    let pp = at(p + i);
+    const pend = at(p + i1 - 3);
+    const pend2 = at(p + i1 - 7);
+    for (; pp < pend2; pp += 32) {
+      const d = f32x4.sub(v128.load(pp), v128.load(pp + off));
+      const x = f32x4.sub(v128.load(pp + voff), f32x4.mul(vG, d));
+      const d2 = f32x4.sub(v128.load(pp, 16), v128.load(pp + off, 16));
+      const x2 = f32x4.sub(v128.load(pp + voff, 16), f32x4.mul(vG, d2));
+      v128.store(pp + voff, x);
+      v128.store(pp + voff, x2, 16);
     }
+    for (; pp < pend; pp += 16) {
+      const d = f32x4.sub(v128.load(pp), v128.load(pp + off));
+      const x = f32x4.sub(v128.load(pp + voff), f32x4.mul(vG, d));
+      v128.store(pp + voff, x);
+    }
+    i = <i32>((pp >> 2) - <usize>p);
     for (; i < i1; i++) {
       const x: f32 = load<f32>(at(vy + i)) - gain * (load<f32>(at(p + i)) - load<f32>(at(pBelow + i)));
-      store<f32>(at(vy + i), (x + flush) - flush);
+      store<f32>(at(vy + i), x);
     }
   } else if (g < 0) {
     for (; i + 4 <= i1; i += 4) {
       const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(pBelow + i)));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(vy + i))), f32x4.mul(vG, d));
-      v128.store(at(vy + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(vy + i), x);
     }
     for (; i < i1; i++) {
       const x: f32 = decay * load<f32>(at(vy + i)) - gain * (load<f32>(at(p + i)) - load<f32>(at(pBelow + i)));
-      store<f32>(at(vy + i), (x + flush) - flush);
+      store<f32>(at(vy + i), x);
     }
   } else {
     for (; i + 4 <= i1; i += 4) {
       const d = f32x4.sub(v128.load(at(p + i)), v128.load(at(pBelow + i)));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(vy + i))), f32x4.mul(v128.load(at(g + i)), d));
-      v128.store(at(vy + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(vy + i), x);
     }
     for (; i < i1; i++) {
       const x: f32 = decay * load<f32>(at(vy + i)) - load<f32>(at(g + i)) * (load<f32>(at(p + i)) - load<f32>(at(pBelow + i)));
-      store<f32>(at(vy + i), (x + flush) - flush);
+      store<f32>(at(vy + i), x);
     }
   }
 }
 
 /** p[i] = decay p[i] - gain (vx[i+1] - vx[i] + vyAbove[i] - vy[i]); `g` >= 0: gain per cell from a field row. */
-function pressure(p: i32, vx: i32, vy: i32, vyAbove: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32, flush: f32): void {
-  const vF = f32x4.splat(flush);
+function pressure(p: i32, vx: i32, vy: i32, vyAbove: i32, i0: i32, i1: i32, decay: f32, gain: f32, g: i32): void {
   const vA = f32x4.splat(decay);
   const vG = f32x4.splat(gain);
   let i = i0;
   if (g < 0 && decay == 1.0) {
-    for (; i + 4 <= i1; i += 4) {
-      const div = f32x4.add(f32x4.sub(v128.load(at(vx + i + 1)), v128.load(at(vx + i))), f32x4.sub(v128.load(at(vyAbove + i)), v128.load(at(vy + i))));
-      const x = f32x4.sub(v128.load(at(p + i)), f32x4.mul(vG, div));
-      v128.store(at(p + i), f32x4.sub(f32x4.add(x, vF), vF));
+    const ox = at(vx) - at(p);
+    const oy = at(vy) - at(p);
+    const oya = at(vyAbove) - at(p);
+    let pp = at(p + i);
+    const pend = at(p + i1 - 3);
+    const pend2 = at(p + i1 - 7);
+    for (; pp < pend2; pp += 32) {
+      const div = f32x4.add(f32x4.sub(v128.load(pp + ox, 4), v128.load(pp + ox)), f32x4.sub(v128.load(pp + oya), v128.load(pp + oy)));
+      const x = f32x4.sub(v128.load(pp), f32x4.mul(vG, div));
+      const div2 = f32x4.add(f32x4.sub(v128.load(pp + ox, 20), v128.load(pp + ox, 16)), f32x4.sub(v128.load(pp + oya, 16), v128.load(pp + oy, 16)));
+      const x2 = f32x4.sub(v128.load(pp, 16), f32x4.mul(vG, div2));
+      v128.store(pp, x);
+      v128.store(pp, x2, 16);
     }
+    for (; pp < pend; pp += 16) {
+      const div = f32x4.add(f32x4.sub(v128.load(pp + ox, 4), v128.load(pp + ox)), f32x4.sub(v128.load(pp + oya), v128.load(pp + oy)));
+      const x = f32x4.sub(v128.load(pp), f32x4.mul(vG, div));
+      v128.store(pp, x);
+    }
+    i = <i32>((pp >> 2) - <usize>p);
     for (; i < i1; i++) {
       const div: f32 = (load<f32>(at(vx + i + 1)) - load<f32>(at(vx + i))) + (load<f32>(at(vyAbove + i)) - load<f32>(at(vy + i)));
       const x: f32 = load<f32>(at(p + i)) - gain * div;
-      store<f32>(at(p + i), (x + flush) - flush);
+      store<f32>(at(p + i), x);
     }
   } else if (g < 0) {
     for (; i + 4 <= i1; i += 4) {
       const div = f32x4.add(f32x4.sub(v128.load(at(vx + i + 1)), v128.load(at(vx + i))), f32x4.sub(v128.load(at(vyAbove + i)), v128.load(at(vy + i))));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(p + i))), f32x4.mul(vG, div));
-      v128.store(at(p + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(p + i), x);
     }
     for (; i < i1; i++) {
       const div: f32 = (load<f32>(at(vx + i + 1)) - load<f32>(at(vx + i))) + (load<f32>(at(vyAbove + i)) - load<f32>(at(vy + i)));
       const x: f32 = decay * load<f32>(at(p + i)) - gain * div;
-      store<f32>(at(p + i), (x + flush) - flush);
+      store<f32>(at(p + i), x);
     }
   } else {
     for (; i + 4 <= i1; i += 4) {
       const div = f32x4.add(f32x4.sub(v128.load(at(vx + i + 1)), v128.load(at(vx + i))), f32x4.sub(v128.load(at(vyAbove + i)), v128.load(at(vy + i))));
       const x = f32x4.sub(f32x4.mul(vA, v128.load(at(p + i))), f32x4.mul(v128.load(at(g + i)), div));
-      v128.store(at(p + i), f32x4.sub(f32x4.add(x, vF), vF));
+      v128.store(at(p + i), x);
     }
     for (; i < i1; i++) {
       const div: f32 = (load<f32>(at(vx + i + 1)) - load<f32>(at(vx + i))) + (load<f32>(at(vyAbove + i)) - load<f32>(at(vy + i)));
       const x: f32 = decay * load<f32>(at(p + i)) - load<f32>(at(g + i)) * div;
-      store<f32>(at(p + i), (x + flush) - flush);
+      store<f32>(at(p + i), x);
     }
   }
 }
 
 /** Split-field PML cells: px = ax px - bx dvx, py = ay py - by dvy, py = p - px, p = px + py. */
-function pressureSplit(p: i32, px: i32, vx: i32, vy: i32, vyAbove: i32, ax: i32, bx: i32, i0: i32, i1: i32, ay: f32, by: f32, flush: f32): void {
-  const vF = f32x4.splat(flush);
+function pressureSplit(p: i32, px: i32, vx: i32, vy: i32, vyAbove: i32, ax: i32, bx: i32, i0: i32, i1: i32, ay: f32, by: f32): void {
   const vAy = f32x4.splat(ay);
   const vBy = f32x4.splat(by);
   let i = i0;
   for (; i + 4 <= i1; i += 4) {
     const oldX = v128.load(at(px + i));
     const oldY = f32x4.sub(v128.load(at(p + i)), oldX);
-    let newX = f32x4.sub(f32x4.mul(v128.load(at(ax + i)), oldX), f32x4.mul(v128.load(at(bx + i)), f32x4.sub(v128.load(at(vx + i + 1)), v128.load(at(vx + i)))));
-    newX = f32x4.sub(f32x4.add(newX, vF), vF);
+    const newX = f32x4.sub(f32x4.mul(v128.load(at(ax + i)), oldX), f32x4.mul(v128.load(at(bx + i)), f32x4.sub(v128.load(at(vx + i + 1)), v128.load(at(vx + i)))));
     const newY = f32x4.sub(f32x4.mul(vAy, oldY), f32x4.mul(vBy, f32x4.sub(v128.load(at(vyAbove + i)), v128.load(at(vy + i)))));
     v128.store(at(px + i), newX);
-    v128.store(at(p + i), f32x4.sub(f32x4.add(f32x4.add(newX, newY), vF), vF));
+    v128.store(at(p + i), f32x4.add(newX, newY));
   }
   for (; i < i1; i++) {
     const oldX = load<f32>(at(px + i));
     const oldY: f32 = load<f32>(at(p + i)) - oldX;
-    let newX: f32 = load<f32>(at(ax + i)) * oldX - load<f32>(at(bx + i)) * (load<f32>(at(vx + i + 1)) - load<f32>(at(vx + i)));
-    newX = (newX + flush) - flush;
+    const newX: f32 = load<f32>(at(ax + i)) * oldX - load<f32>(at(bx + i)) * (load<f32>(at(vx + i + 1)) - load<f32>(at(vx + i)));
     const newY: f32 = ay * oldY - by * (load<f32>(at(vyAbove + i)) - load<f32>(at(vy + i)));
     store<f32>(at(px + i), newX);
-    store<f32>(at(p + i), ((newX + newY) + flush) - flush);
+    store<f32>(at(p + i), newX + newY);
   }
 }
 
@@ -297,7 +333,6 @@ function velocityRow(j: i32): void {
   const nx = slot(P_NX);
   const ny = slot(P_NY);
   const stride = slot(P_STRIDE);
-  const flush = slotF(P_FLUSH_VELOCITY);
   const decay = slotF(P_DECAY);
   const gain = slotF(P_VELOCITY_GAIN);
   const heterogeneous = (slot(P_FLAGS) & FLAG_HETEROGENEOUS) != 0;
@@ -310,23 +345,29 @@ function velocityRow(j: i32): void {
   const pmlRight = slot(P_PML_RIGHT);
   const pmlRow = j < slot(P_PML_BOTTOM) || j >= ny - slot(P_PML_TOP);
   if (pmlRow) {
-    velocityXTable(vx, p, colFaceDecay, colFaceGain, 1, nx, flush);
+    // Columns between the side PMLs have no x damping: the uniform path gives the same numbers, faster.
+    const pmlLeft = slot(P_PML_LEFT);
+    const iL = pmlLeft > 1 ? pmlLeft : 1;
+    const iR = pmlRight > 0 ? nx - pmlRight + 1 : nx;
+    if (iL > 1) velocityXTable(vx, p, colFaceDecay, colFaceGain, 1, iL);
+    velocityX(vx, p, iL, iR, decay, gain, -1);
+    if (iR < nx) velocityXTable(vx, p, colFaceDecay, colFaceGain, iR, nx);
   } else {
     const pmlLeft = slot(P_PML_LEFT);
     const iL = pmlLeft > 1 ? pmlLeft : 1;
     const iR = pmlRight > 0 ? nx - pmlRight + 1 : nx;
-    if (iL > 1) velocityXTable(vx, p, colFaceDecay, colFaceGain, 1, iL, flush);
-    velocityX(vx, p, iL, iR, decay, gain, heterogeneous ? slot(P_FACE_GAIN_X) + j * stride : -1, flush);
-    if (iR < nx) velocityXTable(vx, p, colFaceDecay, colFaceGain, iR, nx, flush);
+    if (iL > 1) velocityXTable(vx, p, colFaceDecay, colFaceGain, 1, iL);
+    velocityX(vx, p, iL, iR, decay, gain, heterogeneous ? slot(P_FACE_GAIN_X) + j * stride : -1);
+    if (iR < nx) velocityXTable(vx, p, colFaceDecay, colFaceGain, iR, nx);
   }
   if (j >= 1) {
     const vy = slot(P_VELOCITY_Y) + j * stride;
     if (pmlRow) {
       const rowFaceDecay = rows + 2 * (ny + 1);
       const rowFaceGain = rows + 3 * (ny + 1);
-      velocityY(vy, p, p - stride, 0, nx, load<f32>(at(rowFaceDecay + j)), load<f32>(at(rowFaceGain + j)), -1, flush);
+      velocityY(vy, p, p - stride, 0, nx, load<f32>(at(rowFaceDecay + j)), load<f32>(at(rowFaceGain + j)), -1);
     } else {
-      velocityY(vy, p, p - stride, 0, nx, decay, gain, heterogeneous ? slot(P_FACE_GAIN_Y) + j * stride : -1, flush);
+      velocityY(vy, p, p - stride, 0, nx, decay, gain, heterogeneous ? slot(P_FACE_GAIN_Y) + j * stride : -1);
     }
   }
 }
@@ -352,7 +393,6 @@ function pressureRow(j: i32): void {
   const ny = slot(P_NY);
   const stride = slot(P_STRIDE);
   const flags = slot(P_FLAGS);
-  const flush = slotF(P_FLUSH_PRESSURE);
   const decay = slotF(P_DECAY);
   const gain = slotF(P_PRESSURE_GAIN);
   const p = slot(P_PRESSURE) + j * stride;
@@ -365,13 +405,13 @@ function pressureRow(j: i32): void {
   const px = slot(P_PML_PRESSURE_X) + j * stride;
   const pmlRow = j < slot(P_PML_BOTTOM) || j >= ny - slot(P_PML_TOP);
   if (pmlRow) {
-    pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, 0, nx, load<f32>(at(rows + j)), load<f32>(at(rows + (ny + 1) + j)), flush);
+    pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, 0, nx, load<f32>(at(rows + j)), load<f32>(at(rows + (ny + 1) + j)));
   } else {
     const iL = slot(P_PML_LEFT);
     const iR = nx - slot(P_PML_RIGHT);
-    if (iL > 0) pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, 0, iL, decay, gain, flush);
-    pressure(p, vx, vy, vyAbove, iL, iR, decay, gain, (flags & FLAG_HETEROGENEOUS) != 0 ? slot(P_CELL_GAIN) + j * stride : -1, flush);
-    if (iR < nx) pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, iR, nx, decay, gain, flush);
+    if (iL > 0) pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, 0, iL, decay, gain);
+    pressure(p, vx, vy, vyAbove, iL, iR, decay, gain, (flags & FLAG_HETEROGENEOUS) != 0 ? slot(P_CELL_GAIN) + j * stride : -1);
+    if (iR < nx) pressureSplit(p, px, vx, vy, vyAbove, cols, cols + stride, iR, nx, decay, gain);
   }
   const zeroRowStart = slot(P_ZERO_ROW_START);
   const zeroCell = slot(P_ZERO_CELL);
@@ -399,4 +439,29 @@ export function sweepStrip(y0: i32, y1: i32): void {
 /** Phase 2: pressure row y1 - 1, once the strip above has swept. */
 export function finishStrip(y0: i32, y1: i32): void {
   if (y1 > y0) pressureRow(y1 - 1);
+}
+
+/** x = (x + F) - F over `count` floats from element `start`: tiny values to zero, the rest to the quantum. */
+function flushRow(start: i32, count: i32, flush: f32): void {
+  const vF = f32x4.splat(flush);
+  let i = 0;
+  for (; i + 4 <= count; i += 4) v128.store(at(start + i), f32x4.sub(f32x4.add(v128.load(at(start + i)), vF), vF));
+  for (; i < count; i++) store<f32>(at(start + i), (load<f32>(at(start + i)) + flush) - flush);
+}
+
+/** Flushes rows [y0, y1) of every field, and the top y-velocity row with the last strip (after phase 2). */
+export function flushStrip(y0: i32, y1: i32): void {
+  const nx = slot(P_NX);
+  const ny = slot(P_NY);
+  const stride = slot(P_STRIDE);
+  const flushP = slotF(P_FLUSH_PRESSURE);
+  const flushV = slotF(P_FLUSH_VELOCITY);
+  const hasPml = (slot(P_FLAGS) & FLAG_PML) != 0;
+  for (let j = y0; j < y1; j++) {
+    flushRow(slot(P_PRESSURE) + j * stride, nx, flushP);
+    if (hasPml) flushRow(slot(P_PML_PRESSURE_X) + j * stride, nx, flushP);
+    flushRow(slot(P_VELOCITY_X) + j * stride, nx + 1, flushV);
+    flushRow(slot(P_VELOCITY_Y) + j * stride, nx, flushV);
+  }
+  if (y1 == ny && y1 > y0) flushRow(slot(P_VELOCITY_Y) + ny * stride, nx, flushV);
 }
