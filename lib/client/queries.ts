@@ -1,7 +1,7 @@
 "use client";
 // TanStack Query hooks over the API routes: one place names every query key.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { MeResponse, StudiesResponse, StudyRecord, StudyResponse, TeamMember } from "@/lib/http/api-types";
+import type { BlockItem, BlocksResponse, MeResponse, SceneRecord, SceneResponse, StudiesResponse, StudyRecord, StudyResponse, TeamMember } from "@/lib/http/api-types";
 import type { StudyInput } from "@/lib/validation/study";
 import { fetchJson } from "./api";
 
@@ -10,6 +10,8 @@ export const queryKeys = {
   studies: (teamId: string) => ["teams", teamId, "studies"] as const,
   study: (studyId: string) => ["studies", studyId] as const,
   members: (teamId: string) => ["teams", teamId, "members"] as const,
+  scene: (sceneId: string) => ["scenes", sceneId] as const,
+  blocks: (studyId: string) => ["studies", studyId, "blocks"] as const,
 };
 
 export function useMe() {
@@ -42,4 +44,44 @@ export function useTeamMembers(teamId: string | null) {
     queryFn: () => fetchJson<{ members: TeamMember[] }>(`/api/teams/${teamId}/members`),
     enabled: teamId !== null,
   });
+}
+
+export function useScene(sceneId: string) {
+  return useQuery({ queryKey: queryKeys.scene(sceneId), queryFn: () => fetchJson<SceneResponse>(`/api/scenes/${sceneId}`) });
+}
+
+export function useBlocks(studyId: string) {
+  return useQuery({ queryKey: queryKeys.blocks(studyId), queryFn: () => fetchJson<BlocksResponse>(`/api/studies/${studyId}/blocks`) });
+}
+
+/** Notebook edits: each refreshes the block list (and the study, whose activity changes). */
+export function useNotebookMutations(studyId: string) {
+  const client = useQueryClient();
+  const refresh = () => Promise.all([client.invalidateQueries({ queryKey: queryKeys.blocks(studyId) }), client.invalidateQueries({ queryKey: queryKeys.study(studyId) })]);
+  return {
+    addNotes: useMutation({
+      mutationFn: (input: { markdown: string; afterBlockId: string | null }) =>
+        fetchJson<{ block: BlockItem }>(`/api/studies/${studyId}/blocks`, { method: "POST", json: { kind: "notes", content: { markdown: input.markdown }, afterBlockId: input.afterBlockId } }),
+      onSuccess: refresh,
+    }),
+    updateBlock: useMutation({
+      mutationFn: (input: { blockId: string; baseVersion: number; markdown?: string; collapsed?: boolean }) =>
+        fetchJson<{ block: BlockItem }>(`/api/blocks/${input.blockId}`, { method: "PATCH", json: { baseVersion: input.baseVersion, markdown: input.markdown, collapsed: input.collapsed } }),
+      onSuccess: refresh,
+    }),
+    deleteBlock: useMutation({
+      // 204 has no body: fetchJson reads it as null.
+      mutationFn: (blockId: string) => fetchJson<null>(`/api/blocks/${blockId}`, { method: "DELETE" }),
+      onSuccess: refresh,
+    }),
+    reorder: useMutation({
+      mutationFn: (blockIds: string[]) => fetchJson<{ blocks: BlockItem[] }>(`/api/studies/${studyId}/blocks/order`, { method: "PUT", json: { blockIds } }),
+      onSuccess: refresh,
+    }),
+    addScene: useMutation({
+      mutationFn: (input: { name: string; templateId: string; isReference: boolean }) =>
+        fetchJson<{ scene: SceneRecord }>(`/api/studies/${studyId}/scenes`, { method: "POST", json: input }),
+      onSuccess: refresh,
+    }),
+  };
 }
