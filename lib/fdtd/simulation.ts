@@ -9,6 +9,7 @@ import { rasteriseScene, type RasterisedScene } from "./rasterise";
 import { placeReceivers, receiverSpecs, sampleStencil, type PlacedReceiver } from "./receivers";
 import { COURANT_LIMIT_2D, parseSceneOrThrow, type Scene } from "./scene";
 import { placeSources, sourceIncrement, type PlacedSource } from "./sources";
+import { accumulateIntensity, INTENSITY_SAMPLE_INTERVAL, type IntensityRegion } from "./intensity";
 import { initialiseState, planState, type StateSetup } from "./state";
 
 export interface SimulationOptions {
@@ -95,6 +96,8 @@ export interface SimulationResult {
   snapshots: FieldSnapshot[];
   finalPressure: FieldSnapshot;
   levelMaps?: LevelMaps;
+  /** Time-averaged intensity <p v> per domain cell, W/m^2 (with the level maps); layout as FieldSnapshot. */
+  intensity?: { x: FieldSnapshot; y: FieldSnapshot; samples: number };
   /** 1 inside a solid, per domain cell; layout as FieldSnapshot with spacing = cell size. */
   solidMask: Uint8Array;
   /** Acoustic energy per unit length (J/m) at each energy check. */
@@ -151,6 +154,7 @@ export class Simulation {
   private readonly energyCheckInterval: number;
   private readonly transientEnd: number;
   private readonly setupSeconds: number;
+  private readonly intensity?: { region: IntensityRegion; sumX: Float32Array; sumY: Float32Array; samples: number };
   private peakEnergy = 0;
   private lastEnergy = 0;
   private growthRun = 0;
@@ -187,6 +191,16 @@ export class Simulation {
     // The energy pass reads three arrays once: every 128 steps it costs about 1% of the stepping.
     this.energyCheckInterval = options.energyCheckInterval ?? 128;
     this.transientEnd = Math.max(0, ...this.sources.map((s) => s.signal.endTime));
+    if (this.scene.output.levelMaps) {
+      const { pmlCells, domainCells } = this.grid;
+      const cells = domainCells.nx * domainCells.ny;
+      this.intensity = {
+        region: { i0: pmlCells.left, j0: pmlCells.bottom, width: domainCells.nx, height: domainCells.ny },
+        sumX: new Float32Array(cells),
+        sumY: new Float32Array(cells),
+        samples: 0,
+      };
+    }
     this.setupSeconds = now() - started;
   }
 
@@ -217,6 +231,11 @@ export class Simulation {
     this.injectSources();
     this.step++;
     this.recordReceivers();
+    if (this.intensity && this.step % INTENSITY_SAMPLE_INTERVAL === 0) {
+      const { pressure, velocityX, velocityY, stride } = this.layout;
+      accumulateIntensity(this.f, pressure, velocityX, velocityY, stride, this.intensity.region, this.intensity.sumX, this.intensity.sumY);
+      this.intensity.samples++;
+    }
     const every = this.scene.output.snapshotEverySteps;
     if (every !== undefined && this.step % every === 0) this.snapshots.push(this.snapshot(this.scene.output.snapshotCellStride));
   }
@@ -346,6 +365,23 @@ export class Simulation {
     return { step: this.step, time: this.step * this.grid.timeStep, width, height, x0: 0.5 * cellSize, y0: 0.5 * cellSize, spacing: cellSize * cellStride, values };
   }
 
+  private meanIntensity(): SimulationResult["intensity"] {
+    if (!this.intensity || this.intensity.samples === 0) return undefined;
+    const { sumX, sumY, samples, region } = this.intensity;
+    const { cellSize } = this.grid;
+    const mean = (sum: Float32Array): FieldSnapshot => ({
+      step: this.step,
+      time: this.step * this.grid.timeStep,
+      width: region.width,
+      height: region.height,
+      x0: 0.5 * cellSize,
+      y0: 0.5 * cellSize,
+      spacing: cellSize,
+      values: sum.map((value) => value / samples),
+    });
+    return { x: mean(sumX), y: mean(sumY), samples };
+  }
+
   private levelMaps(): LevelMaps | undefined {
     if (!this.layout.levelMaps) return undefined;
     const d = new Float64Array(this.buffer, 0, Math.floor(this.buffer.byteLength / 8));
@@ -444,6 +480,7 @@ export class Simulation {
       };
     });
     const levelMaps = this.levelMaps();
+    const intensity = this.meanIntensity();
     return {
       grid: this.grid,
       warnings: this.grid.warnings,
@@ -455,6 +492,7 @@ export class Simulation {
       snapshots: this.snapshots,
       finalPressure: this.snapshot(1),
       ...(levelMaps ? { levelMaps } : {}),
+      ...(intensity ? { intensity } : {}),
       solidMask: this.solidMask(),
       energy: this.energy,
       sources: this.sources.map((s) => ({ id: s.id, label: s.label, x: s.x, y: s.y })),
