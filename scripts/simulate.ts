@@ -1,4 +1,4 @@
-// Command-line runner: npm run simulate -- scene.json --out DIR [--kernel wasm|typescript] [--quiet]
+// Command-line runner: npm run simulate -- scene.json --out DIR [--kernel wasm|typescript] [--threads N] [--quiet]
 // Writes receiver traces (traces.csv, traces.json), summary.json (grid, timings, warnings) and
 // final-pressure.png. A bad scene file gets one error line per problem, with its JSON path, and exit code 1.
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
@@ -13,8 +13,9 @@ import { Simulation, type SimulationResult } from "@/lib/fdtd/simulation";
 
 import { fieldToPng } from "./fdtd-png";
 import { kernelByName } from "./fdtd-kernels";
+import { nodeParallelKernel, type NodeParallelKernel } from "./fdtd-parallel-node";
 
-const USAGE = "usage: npm run simulate -- scene.json --out DIR [--kernel wasm|typescript] [--quiet]";
+const USAGE = "usage: npm run simulate -- scene.json --out DIR [--kernel wasm|typescript] [--threads N] [--quiet]";
 
 function fail(message: string): never {
   process.stderr.write(`${message}\n`);
@@ -62,12 +63,12 @@ function tracesJson(result: SimulationResult): string {
   });
 }
 
-function main(): void {
+async function main(): Promise<void> {
   let parsed;
   try {
     parsed = parseArgs({
       allowPositionals: true,
-      options: { out: { type: "string", short: "o" }, kernel: { type: "string", default: "wasm" }, quiet: { type: "boolean", default: false } },
+      options: { out: { type: "string", short: "o" }, kernel: { type: "string", default: "wasm" }, threads: { type: "string", default: "1" }, quiet: { type: "boolean", default: false } },
     });
   } catch (error) {
     fail(`${(error as Error).message}\n${USAGE}`);
@@ -103,8 +104,14 @@ function main(): void {
   log(`resolved up to ${grid.maxResolvedFrequency.toFixed(0)} Hz at ${grid.pointsPerWavelength} cells per wavelength; ${grid.steps} steps (${(grid.simulatedSeconds * 1000).toPrecision(4)} ms); about ${formatBytes(grid.memoryBytes)}`);
   for (const warning of grid.warnings) process.stderr.write(`warning: ${warning.path ? `${warning.path}: ` : ""}${warning.message}\n`);
 
-  const kernel = kernelByName(parsed.values.kernel ?? "wasm");
-  const simulation = new Simulation(scene, { kernel });
+  const threads = Number(parsed.values.threads);
+  if (!Number.isInteger(threads) || threads < 1 || threads > 64) fail(`--threads: a whole number from 1 to 64, not "${parsed.values.threads}"\n${USAGE}`);
+  const kernelName = parsed.values.kernel ?? "wasm";
+  const kernel = kernelByName(kernelName);
+  // Several threads step strips of the grid over shared memory, bit-identical to one thread.
+  const pool: NodeParallelKernel | undefined =
+    threads > 1 ? nodeParallelKernel({ threads, rows: grid.ny, kernelKind: kernelName === "typescript" ? "typescript" : "wasm-simd" }) : undefined;
+  const simulation = new Simulation(scene, { kernel: pool?.provider ?? kernel });
   const bar = parsed.values.quiet
     ? undefined
     : new cliProgress.SingleBar({ format: "simulating [{bar}] {percentage}% | {value}/{total} steps | {energy} dB | ETA {eta_formatted}", hideCursor: true }, cliProgress.Presets.shades_classic);
@@ -114,8 +121,10 @@ function main(): void {
     result = simulation.run({ onProgress: (p) => bar?.update(p.step, { energy: p.energyDb.toFixed(1) }) });
   } catch (error) {
     bar?.stop();
+    await pool?.close();
     fail(`${scenePath}: ${(error as Error).message}`);
   }
+  await pool?.close();
   bar?.update(result.stepsRun);
   bar?.stop();
 
@@ -141,4 +150,4 @@ function main(): void {
   log(`wrote traces.csv, traces.json, summary.json and final-pressure.png to ${outDir}`);
 }
 
-main();
+void main();
