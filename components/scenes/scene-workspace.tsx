@@ -1,0 +1,99 @@
+"use client";
+// One scene: what it is, what grid it implies, and running it in this browser with the field
+// shown live and, afterwards, replayable over the snapshots.
+import Link from "next/link";
+import { useEffect, useMemo } from "react";
+import { RunPanel } from "@/components/run/run-panel";
+import { rememberSessionRun } from "@/components/run/session-runs";
+import { useBrowserRun } from "@/components/run/use-browser-run";
+import { RoleBadge } from "@/components/studies/role-badge";
+import { SceneSketch } from "@/components/studies/scene-sketch";
+import { ErrorState, LoadingRows } from "@/components/ui/states";
+import { roleAllows } from "@/lib/access/roles";
+import { ApiError } from "@/lib/client/api";
+import { formatWhen } from "@/lib/client/format";
+import { useScene } from "@/lib/client/queries";
+import { deriveGrid } from "@/lib/fdtd/grid";
+import { parseScene } from "@/lib/fdtd/scene";
+import { GridFigures } from "./grid-figures";
+import { RunViewer } from "./run-viewer";
+
+export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId: string }) {
+  const query = useScene(sceneId);
+  const run = useBrowserRun();
+  const parsed = useMemo(() => (query.data ? parseScene(query.data.scene.data) : null), [query.data]);
+  const grid = useMemo(() => (parsed?.ok ? deriveGrid(parsed.scene) : null), [parsed]);
+  const finished = run.state.phase === "finished" ? run.state.result : null;
+  const record = query.data?.scene;
+  useEffect(() => {
+    if (finished && record) rememberSessionRun({ sceneId: record.id, sceneName: record.name, isReference: record.isReference, result: finished, finishedAt: Date.now() });
+  }, [finished, record]);
+
+  if (query.isPending) return <LoadingRows label="Loading the scene" />;
+  if (query.isError) {
+    const notFound = query.error instanceof ApiError && query.error.status === 404;
+    return <ErrorState title={notFound ? "No such scene" : "The scene could not be loaded"} message={notFound ? "It may have been deleted, or it belongs to a team you are not on." : query.error.message} />;
+  }
+  const { role } = query.data;
+  const current = query.data.scene;
+
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <nav aria-label="Breadcrumb" className="text-sm text-muted">
+          <Link href="/dashboard" className="hover:text-tide-600">
+            Studies
+          </Link>
+          <span aria-hidden> / </span>
+          <Link href={`/studies/${studyId}`} className="hover:text-tide-600">
+            Study
+          </Link>
+          <span aria-hidden> / </span>
+          <span className="text-ink-soft">Scene</span>
+        </nav>
+        <div className="mt-2 flex flex-wrap items-center gap-3">
+          <h1 className="text-[26px] font-semibold leading-tight text-ink">{current.name}</h1>
+          <RoleBadge role={role} />
+          <span className="text-sm text-muted">
+            Version {current.version} · {current.updatedByName ?? "someone"}, {formatWhen(current.updatedAt)}
+          </span>
+        </div>
+        {current.description ? <p className="mt-2 max-w-3xl text-[15px] text-ink-soft">{current.description}</p> : null}
+      </div>
+
+      {parsed && !parsed.ok ? (
+        <ErrorState title="This scene does not validate" message={parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ")} />
+      ) : null}
+
+      {parsed?.ok && grid ? (
+        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+          <div className="flex flex-col gap-4">
+            <div className="rounded-lg border border-rule bg-panel p-4">
+              <RunPanel
+                state={run.state}
+                canRun={roleAllows(role, "run:create")}
+                onStart={() => void run.start(parsed.scene)}
+                onPause={run.pause}
+                onResume={run.resume}
+                onCancel={run.cancel}
+              />
+            </div>
+            <div className="rounded-lg border border-rule bg-panel p-3">
+              {run.state.frame || run.state.result ? (
+                <RunViewer scene={parsed.scene} sceneId={current.id} grid={grid} state={run.state} />
+              ) : (
+                <SceneSketch scene={parsed.scene} className="h-auto w-full" />
+              )}
+            </div>
+          </div>
+          <aside className="flex flex-col gap-3">
+            <h2 className="text-base font-semibold text-ink">Grid</h2>
+            <div className="rounded-lg border border-rule bg-panel p-4">
+              <GridFigures grid={grid} />
+            </div>
+          </aside>
+        </div>
+      ) : null}
+    </div>
+  );
+}
