@@ -157,7 +157,7 @@ function drawPmlBands(context: CanvasRenderingContext2D, input: OverlayInput): v
   const labelSide = EDGE_SIDES.filter((side) => extent.pml[side] * layout.pixelsPerMetre >= 13).sort((a, b) => (a === "top" ? -1 : b === "top" ? 1 : 0))[0];
   if (labelSide) {
     const cells = extent.pmlCells[labelSide];
-    const label = `PML \u00b7 ${cells} cells`;
+    const label = `PML \u00b7 ${cells} cells, ${extent.pml[labelSide].toFixed(2)} m`;
     context.font = font(input, 10, 500);
     context.fillStyle = OVERLAY_COLOURS.tideDeep;
     context.textBaseline = "middle";

@@ -192,7 +192,9 @@ export function createWebGlFieldRenderer(canvas: HTMLCanvasElement, options: Web
       regl.clear(clearColour);
     },
     destroy() {
-      // regl.destroy frees every texture, buffer and program it made.
+      // Back to the default GL state (scissor off), so a renderer made next on the same context (React's
+      // development double mount) starts clean; then regl.destroy frees every texture, buffer and program.
+      regl.poll();
       grids.clear();
       tables.clear();
       regl.destroy();

@@ -154,10 +154,10 @@ function FieldViewComponent({
   useEffect(() => {
     const container = containerRef.current;
     if (!container) return;
+    // The canvases fill the padding box (absolute, inset 0): clientWidth/Height, borders excluded.
     const measure = () => {
-      const box = container.getBoundingClientRect();
       setSize((old) => {
-        const next = { width: Math.floor(box.width), height: Math.floor(box.height), pixelRatio: window.devicePixelRatio || 1 };
+        const next = { width: container.clientWidth, height: container.clientHeight, pixelRatio: window.devicePixelRatio || 1 };
         return old && old.width === next.width && old.height === next.height && old.pixelRatio === next.pixelRatio ? old : next;
       });
     };
