@@ -1,5 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Page } from "playwright-core";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
 import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
 import { keepScreenshot, openBrowser } from "./browser";
 import { DashboardPage } from "./pages/dashboard-page";
@@ -10,10 +10,15 @@ const viewer = demoMembers.find((m) => m.role === "viewer")!;
 
 describe("the workbench in a browser", () => {
   let page: Page;
+  let context: BrowserContext;
   let close: () => Promise<void>;
 
   beforeAll(async () => {
-    ({ page, close } = await openBrowser());
+    ({ page, context, close } = await openBrowser());
+  });
+  // Each test starts signed out, whatever the one before it left behind.
+  beforeEach(async () => {
+    await context.clearCookies();
   });
   afterAll(async () => {
     await close();
@@ -31,8 +36,9 @@ describe("the workbench in a browser", () => {
     await keepScreenshot(page, "dashboard-engineer");
 
     await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-    await page.getByRole("list", { name: "Scenes" }).waitFor();
-    expect(await page.getByRole("list", { name: "Scenes" }).locator("h3").allTextContents()).toHaveLength(3);
+    await page.getByRole("list", { name: "Notebook blocks" }).waitFor();
+    expect(await page.locator("[data-block-kind=scene]").count()).toBe(3);
+    expect(await page.locator("[data-block-kind=notes]").count()).toBeGreaterThanOrEqual(1);
     await keepScreenshot(page, "study-demo");
 
     await page.goto("/dashboard");
