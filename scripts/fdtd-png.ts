@@ -1,6 +1,9 @@
-// Writes a pressure field as a PNG: a diverging blue-white-red colour map, symmetric about zero, with
-// solid cells in grey. Image rows run top to bottom, the field's rows bottom to top (y up).
+// Writes a pressure field as a PNG in Rarefact's own diverging scale (the field view's: teal for
+// rarefaction, ember for compression, near-white at zero), symmetric about zero, solids in grey.
+// Image rows run top to bottom, the field's rows bottom to top (y up).
 import { PNG } from "pngjs";
+
+import { LUT_SIZE, PRESSURE_SCALE } from "@/components/field-view/colour-scales";
 
 import type { FieldSnapshot } from "@/lib/fdtd/simulation";
 
@@ -13,11 +16,12 @@ function robustLimit(values: Float32Array): number {
   return at > 0 ? at : Math.max(magnitudes[magnitudes.length - 1] ?? 0, 1e-30);
 }
 
-/** Blue (-1) through white (0) to red (+1). */
+/** The colour of t in [-1, 1] (clamped): the pressure scale's lookup table, -1 at entry 0. */
 function divergingColour(t: number): [number, number, number] {
   const u = Math.max(-1, Math.min(1, t));
-  if (u >= 0) return [255, Math.round(255 * (1 - u)), Math.round(255 * (1 - u))];
-  return [Math.round(255 * (1 + u)), Math.round(255 * (1 + u)), 255];
+  const k = 4 * Math.round(((u + 1) / 2) * (LUT_SIZE - 1));
+  const lut = PRESSURE_SCALE.lut;
+  return [lut[k]!, lut[k + 1]!, lut[k + 2]!];
 }
 
 /** Coarse fields are enlarged by whole pixels per cell to about this width. */
