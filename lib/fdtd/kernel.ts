@@ -14,6 +14,12 @@
 // entry writes them. Inside a PML the pressure is split, p = px + py, each part damped along its own axis:
 //   px = ax[i] px - bx[i] (vx[j][i+1] - vx[j][i]);  py = ay[j] py - by[j] (vy[j+1][i] - vy[j][i])
 // and each velocity component is damped along its own axis (tables per column and per row).
+// The x part px is stored only inside the PML, packed by rows (layout.ts, pmlPressureXRow). In the bottom
+// and top PML rows the columns between the side PMLs have no x damping: there ax, bx are the uniform
+// decay and gain (the column tables hold the same numbers), which saves two table loads per cell.
+// The WebAssembly kernel fuses a velocity row with the pressure row below it where no boundary face
+// intervenes; every value is computed from the same inputs by the same float32 operations as here, so
+// the order of the loops does not change a bit of the result.
 // Float32 subnormals (below 1.2e-38) appear ahead of the wavefront and in decaying regions and are slow
 // on x86; WebAssembly cannot switch on flush-to-zero. So every FLUSH_INTERVAL steps `flushStrip` passes
 // each stored value through (x + F) - F in float32, which rounds it to a multiple of the quantum
@@ -58,6 +64,7 @@ import {
   PARAM_SLOTS,
   PARAMS_BYTE_OFFSET,
 } from "./kernel-params";
+import { pmlPressureXRow, pmlSideLeftWidth, pmlSideRowWidth, type PmlCells } from "./layout";
 
 /**
  * Steps one simulation's fields by horizontal strips of rows. A full step is: `sweepStrip` for every
@@ -95,6 +102,10 @@ interface Context {
   velocityX: number;
   velocityY: number;
   pmlPressureX: number;
+  pmlCells: PmlCells;
+  /** Offset of the right PML columns in a packed side row of px, and the floats of such a row. */
+  pmlSideLeft: number;
+  pmlSideWidth: number;
   /** Column tables: cell decay, cell gain, x-face decay, x-face gain. */
   colCellDecay: number;
   colCellGain: number;
@@ -137,6 +148,7 @@ function readContext(buffer: ArrayBufferLike): Context {
   const ny = at(P_NY);
   const cols = at(P_PML_COLUMNS);
   const rows = at(P_PML_ROWS);
+  const pmlCells = { left: at(P_PML_LEFT), right: at(P_PML_RIGHT), bottom: at(P_PML_BOTTOM), top: at(P_PML_TOP) };
   return {
     f: new Float32Array(buffer),
     d: new Float64Array(buffer, 0, Math.floor(buffer.byteLength / 8)),
@@ -152,6 +164,9 @@ function readContext(buffer: ArrayBufferLike): Context {
     velocityX: at(P_VELOCITY_X),
     velocityY: at(P_VELOCITY_Y),
     pmlPressureX: at(P_PML_PRESSURE_X),
+    pmlCells,
+    pmlSideLeft: pmlSideLeftWidth(pmlCells),
+    pmlSideWidth: pmlSideRowWidth(pmlCells),
     colCellDecay: cols,
     colCellGain: cols + stride,
     colFaceDecay: cols + 2 * stride,
@@ -272,6 +287,31 @@ export function pressureSplit(
   }
 }
 
+/** As pressureSplit with scalar x coefficients ax, bx (bottom and top PML rows, between the side PMLs). */
+export function pressureSplitUniformX(
+  f: Float32Array,
+  p: number,
+  px: number,
+  vx: number,
+  vy: number,
+  vyAbove: number,
+  i0: number,
+  i1: number,
+  ax: number,
+  bx: number,
+  ay: number,
+  by: number,
+): void {
+  for (let i = i0; i < i1; i++) {
+    const oldX = f[px + i]!;
+    const oldY = fr(f[p + i]! - oldX);
+    const newX = fr(fr(ax * oldX) - fr(bx * fr(f[vx + i + 1]! - f[vx + i]!)));
+    const newY = fr(fr(ay * oldY) - fr(by * fr(f[vyAbove + i]! - f[vy + i]!)));
+    f[px + i] = newX;
+    f[p + i] = fr(newX + newY);
+  }
+}
+
 /** Running peak |p| (float32) and sum of p^2 (float64, `sum` is a Float64 offset) over one row. */
 export function accumulateLevels(f: Float32Array, d: Float64Array, p: number, peak: number, sum: number, count: number): void {
   for (let i = 0; i < count; i++) {
@@ -318,6 +358,20 @@ function boundaryFaces(k: Context, j: number): void {
   }
 }
 
+/** Start of row j of px (packed, see layout.ts). */
+function pmlRowOffset(k: Context, j: number): number {
+  return pmlPressureXRow(k.pmlPressureX, k.ny, k.stride, k.pmlCells, j);
+}
+
+/** Element offset of px at cell (i, j), or -1 where no PML damps that cell. */
+function pmlCellOffset(k: Context, i: number, j: number): number {
+  const row = pmlRowOffset(k, j);
+  if (j < k.pmlBottom || j >= k.ny - k.pmlTop) return row + i;
+  if (i < k.pmlLeft) return row + i;
+  if (i >= k.nx - k.pmlRight) return row + k.pmlSideLeft + i - (k.nx - k.pmlRight);
+  return -1;
+}
+
 function pressureRow(k: Context, j: number): void {
   const { f, nx, stride } = k;
   const p = k.pressure + j * stride;
@@ -326,15 +380,21 @@ function pressureRow(k: Context, j: number): void {
   const vyAbove = vy + stride;
   if (k.levelMaps) accumulateLevels(f, k.d, p, k.peak + j * stride, k.squareSum + j * stride, nx);
   const pmlRow = j < k.pmlBottom || j >= k.ny - k.pmlTop;
+  const iL = k.pmlLeft;
+  const iR = nx - k.pmlRight;
+  const px = k.hasPml ? pmlRowOffset(k, j) : -1;
   if (pmlRow) {
-    pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, nx, f[k.rowCellDecay + j]!, f[k.rowCellGain + j]!);
+    const ay = f[k.rowCellDecay + j]!;
+    const by = f[k.rowCellGain + j]!;
+    if (iL > 0) pressureSplit(f, p, px, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, iL, ay, by);
+    pressureSplitUniformX(f, p, px, vx, vy, vyAbove, iL, iR, k.decay, k.pressureGain, ay, by);
+    if (iR < nx) pressureSplit(f, p, px, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, iR, nx, ay, by);
   } else {
-    const iL = k.pmlLeft;
-    const iR = nx - k.pmlRight;
-    if (iL > 0) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, iL, k.decay, k.pressureGain);
+    // Packed side row: the left columns at px + i, the right ones from px + pmlSideLeft on.
+    if (iL > 0) pressureSplit(f, p, px, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, 0, iL, k.decay, k.pressureGain);
     if (k.heterogeneous) pressureField(f, p, vx, vy, vyAbove, k.cellGain + j * stride, iL, iR, k.decay);
     else pressureUniform(f, p, vx, vy, vyAbove, iL, iR, k.decay, k.pressureGain);
-    if (iR < nx) pressureSplit(f, p, k.pmlPressureX + j * stride, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, iR, nx, k.decay, k.pressureGain);
+    if (iR < nx) pressureSplit(f, p, px + k.pmlSideLeft - iR, vx, vy, vyAbove, k.colCellDecay, k.colCellGain, iR, nx, k.decay, k.pressureGain);
   }
   // Solid cells behind an impedance face are held at zero so the solid interior stays silent.
   const { n } = k;
@@ -343,7 +403,8 @@ function pressureRow(k: Context, j: number): void {
   for (let s = start; s < end; s++) {
     const cell = n[k.zeroCell + s]!;
     f[k.pressure + cell] = 0;
-    if (k.hasPml) f[k.pmlPressureX + cell] = 0;
+    const split = k.hasPml ? pmlCellOffset(k, cell - j * stride, j) : -1;
+    if (split >= 0) f[split] = 0;
   }
 }
 
@@ -356,7 +417,7 @@ function flushRows(k: Context, y0: number, y1: number): void {
   const { f, nx, stride } = k;
   for (let j = y0; j < y1; j++) {
     flushRow(f, k.pressure + j * stride, nx, k.flushPressure);
-    if (k.hasPml) flushRow(f, k.pmlPressureX + j * stride, nx, k.flushPressure);
+    if (k.hasPml) flushRow(f, pmlRowOffset(k, j), j < k.pmlBottom || j >= k.ny - k.pmlTop ? nx : k.pmlSideWidth, k.flushPressure);
     flushRow(f, k.velocityX + j * stride, nx + 1, k.flushVelocity);
     flushRow(f, k.velocityY + j * stride, nx, k.flushVelocity);
   }

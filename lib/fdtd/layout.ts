@@ -22,6 +22,12 @@ export interface LayoutRequest {
   ny: number;
   /** Any side has a PML: allocates the split pressure and the damping tables. */
   hasPml: boolean;
+  /**
+   * PML thickness in cells per side. The split pressure is kept only where a PML damps along x or y
+   * (see pmlPressureXRow); without these sizes a full grid's worth is reserved, an upper bound good
+   * for memory estimates, and kernels still run on it.
+   */
+  pmlCells?: PmlCells;
   /** Medium regions present: per-cell and per-face coefficients instead of one scalar. */
   heterogeneous: boolean;
   /** Per-cell running peak and mean-square pressure. */
@@ -32,6 +38,45 @@ export interface LayoutRequest {
   zeroCellCount: number;
 }
 
+export interface PmlCells {
+  left: number;
+  right: number;
+  bottom: number;
+  top: number;
+}
+
+/**
+ * Floats kept per row of the split pressure in a row outside the bottom and top PMLs: the left PML
+ * columns rounded up to 4 floats (so that the right part starts 16-byte aligned), then the right ones.
+ */
+export function pmlSideRowWidth(pml: PmlCells): number {
+  return pmlSideLeftWidth(pml) + Math.ceil(pml.right / 4) * 4;
+}
+
+/** Offset of the right PML columns inside a side row of the split pressure. */
+export function pmlSideLeftWidth(pml: PmlCells): number {
+  return Math.ceil(pml.left / 4) * 4;
+}
+
+/**
+ * Element offset of row j of the split pressure's x part px, which exists only inside the PML. Rows of
+ * the bottom and top PMLs are whole (`stride` floats, px[j][i] at row + i); every other row holds only
+ * its side columns, packed (`pmlSideRowWidth` floats: px[j][i] at row + i for i < left and at
+ * row + pmlSideLeftWidth + i - (nx - right) for i >= nx - right). Packing keeps the few side values
+ * of consecutive rows in consecutive cache lines instead of one scattered line per row.
+ */
+export function pmlPressureXRow(base: number, ny: number, stride: number, pml: PmlCells, j: number): number {
+  const interiorRows = ny - pml.bottom - pml.top;
+  if (j < pml.bottom) return base + j * stride;
+  if (j < ny - pml.top) return base + pml.bottom * stride + (j - pml.bottom) * pmlSideRowWidth(pml);
+  return base + pml.bottom * stride + interiorRows * pmlSideRowWidth(pml) + (j - (ny - pml.top)) * stride;
+}
+
+/** Floats of the packed split pressure (see pmlPressureXRow). */
+export function pmlPressureXLength(ny: number, stride: number, pml: PmlCells): number {
+  return (pml.bottom + pml.top) * stride + (ny - pml.bottom - pml.top) * pmlSideRowWidth(pml);
+}
+
 export interface StateLayout extends LayoutRequest {
   stride: number;
   /** Total bytes of the buffer. */
@@ -40,7 +85,7 @@ export interface StateLayout extends LayoutRequest {
   pressure: number;
   velocityX: number;
   velocityY: number;
-  /** x part of the split pressure inside the PML (p = px + py); -1 without PML. */
+  /** x part of the split pressure inside the PML (p = px + py), rows packed as in pmlPressureXRow; -1 without PML. */
   pmlPressureX: number;
   /** Per-column damping tables, `stride` long each: cell decay, cell gain, x-face decay, x-face gain; -1 without PML. */
   pmlColumns: number;
@@ -84,7 +129,7 @@ export function planLayout(request: LayoutRequest): StateLayout {
   const pressure = f32(cells);
   const velocityX = f32(cells);
   const velocityY = f32((ny + 1) * stride);
-  const pmlPressureX = request.hasPml ? f32(cells) : -1;
+  const pmlPressureX = request.hasPml ? f32(request.pmlCells ? pmlPressureXLength(ny, stride, request.pmlCells) : cells) : -1;
   const pmlColumns = request.hasPml ? f32(4 * stride) : -1;
   const pmlRows = request.hasPml ? f32(4 * (ny + 1)) : -1;
   const cellGain = request.heterogeneous ? f32(cells) : -1;

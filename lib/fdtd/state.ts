@@ -47,6 +47,7 @@ export function planState(grid: GridPlan, raster: RasterisedScene, levelMaps: bo
     nx: grid.nx,
     ny: grid.ny,
     hasPml: grid.pmlCells.left + grid.pmlCells.right + grid.pmlCells.bottom + grid.pmlCells.top > 0,
+    pmlCells: grid.pmlCells,
     heterogeneous: raster.mediumIndex !== undefined,
     levelMaps,
     specialFaceCount: raster.boundaryFaces.length,

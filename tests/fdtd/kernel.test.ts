@@ -1,12 +1,13 @@
 // Kernel tests: hand-computed steps on tiny grids, the fast paths against the general ones, the
-// boundary rows, degenerate sizes, and the strip split.
+// boundary rows, degenerate sizes, the state layout, and the strip split.
 import { describe, expect, it } from "vitest";
 
-import { flushRow, pressureSplit, pressureUniform, velocityXTable, velocityXUniform } from "@/lib/fdtd/kernel";
+import { flushRow, pressureSplit, pressureSplitUniformX, pressureUniform, velocityXTable, velocityXUniform } from "@/lib/fdtd/kernel";
+import { planLayout, pmlPressureXLength, pmlPressureXRow, RESERVED_BYTES } from "@/lib/fdtd/layout";
 import type { Scene } from "@/lib/fdtd/scene";
 import { Simulation, splitRows, typeScriptKernelProvider } from "@/lib/fdtd/simulation";
 
-import { everyFeatureScene, unitGridScene } from "./helpers";
+import { allSides, everyFeatureScene, unitGridScene } from "./helpers";
 
 /** These tests are about the TypeScript reference kernel (wasm.test.ts holds the SIMD kernel to it). */
 function referenceSimulation(scene: Scene): Simulation {
@@ -103,6 +104,26 @@ describe("row kernels", () => {
     }
   });
 
+  it("the PML-row update with scalar x coefficients equals the table form when the tables hold those scalars, bit for bit", () => {
+    const stride = 24;
+    const f = new Float32Array(10 * stride);
+    for (let k = 0; k < 6 * stride; k++) f[k] = Math.sin(k * 1.37) * 0.02;
+    // p row 0, vx row 1, vy rows 2 and 3, px row 4 (non-zero), tables at rows 6, 7
+    for (let i = 0; i < stride; i++) f[4 * stride + i] = Math.cos(i) * 0.01;
+    const ax = Math.fround(0.93);
+    const bx = Math.fround(97.5);
+    for (let i = 0; i < stride; i++) {
+      f[6 * stride + i] = ax;
+      f[7 * stride + i] = bx;
+    }
+    const g = f.slice();
+    const ay = Math.fround(0.71);
+    const by = Math.fround(80.25);
+    pressureSplit(f, 0, 4 * stride, stride, 2 * stride, 3 * stride, 6 * stride, 7 * stride, 1, 21, ay, by);
+    pressureSplitUniformX(g, 0, 4 * stride, stride, 2 * stride, 3 * stride, 1, 21, ax, bx, ay, by);
+    expect(Array.from(g)).toEqual(Array.from(f));
+  });
+
   it("flushes values below the flush quantum to zero, rounds small ones to the quantum and leaves large ones unchanged", () => {
     const f = new Float32Array([1e-30, 3e-39, 0.25, 1e-27, -2e-39]);
     // F = 1e-20 lies in [2^-67, 2^-66), so the quantum (float32 spacing at F) is 2^-90 = 8.1e-28.
@@ -124,6 +145,54 @@ describe("row kernels", () => {
     for (let n = 0; n < 16; n++) sim.advance();
     const subnormal = (x: number) => x !== 0 && Math.abs(x) < 1.1754944e-38;
     expect(all.filter(({ field, k }) => subnormal(field[k]!))).toEqual([]);
+  });
+});
+
+describe("state layout", () => {
+  it("packs the split pressure: whole rows in the bottom and top PMLs, only the side columns elsewhere", () => {
+    // 10 rows of stride 12; PML 3 left (kept as 4 floats, so the right part starts 16-byte aligned), 2 right
+    // (4 floats), 2 bottom, 1 top: rows 0, 1 whole, rows 2..8 of 8 floats, row 9 whole.
+    const pml = { left: 3, right: 2, bottom: 2, top: 1 };
+    const rows = Array.from({ length: 10 }, (_, j) => pmlPressureXRow(100, 10, 12, pml, j));
+    expect(rows).toEqual([100, 112, 124, 132, 140, 148, 156, 164, 172, 180]);
+    expect(pmlPressureXLength(10, 12, pml)).toBe(2 * 12 + 7 * 8 + 12);
+  });
+
+  it("keeps a 1024 x 1024 grid with a 20-cell PML all round near 12 bytes per cell (p, vx, vy and the PML's share)", () => {
+    const layout = planLayout({
+      nx: 1024,
+      ny: 1024,
+      hasPml: true,
+      pmlCells: { left: 20, right: 20, bottom: 20, top: 20 },
+      heterogeneous: false,
+      levelMaps: false,
+      specialFaceCount: 0,
+      zeroCellCount: 0,
+    });
+    const bytesPerCell = (layout.byteLength - RESERVED_BYTES) / (1024 * 1024);
+    expect(bytesPerCell).toBeGreaterThan(12);
+    expect(bytesPerCell).toBeLessThan(12.5);
+  });
+
+  it("holds the uniform decay and gain in the PML column tables from each interface face inwards to the domain", () => {
+    // The SIMD kernel updates the interface faces (left PML thickness, nx - right PML thickness) from the
+    // tables of a side-PML span; the reference updates them as uniform faces. Both must give the same numbers.
+    const sim = referenceSimulation(unitGridScene(30, 6, { boundary: allSides({ kind: "pml", layerCells: 5 }), attenuation: { dBPerMetre: 0.5 } }));
+    const { stride, nx, pmlColumns } = sim.layout;
+    const f = new Float32Array(sim.buffer);
+    const { decay, velocityGain, pressureGain } = sim.setup.scalars;
+    expect(decay).toBeLessThan(1);
+    for (let i = 5; i <= nx - 5; i++) {
+      expect(f[pmlColumns + 2 * stride + i]).toBe(decay);
+      expect(f[pmlColumns + 3 * stride + i]).toBe(velocityGain);
+    }
+    for (let i = 5; i < nx - 5; i++) {
+      expect(f[pmlColumns + i]).toBe(decay);
+      expect(f[pmlColumns + stride + i]).toBe(pressureGain);
+    }
+    // ... and damped values inside the PML.
+    expect(f[pmlColumns + 2 * stride + 2]).toBeLessThan(decay);
+    expect(f[pmlColumns + 2 * stride + nx - 2]).toBeLessThan(decay);
   });
 });
 

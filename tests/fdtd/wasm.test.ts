@@ -57,6 +57,44 @@ function pmlFreeField(): Scene {
   });
 }
 
+/**
+ * A uniform lossless scene where most rows take the SIMD kernel's fused path (velocity row j with
+ * pressure row j-1 in one pass): PML on the left (7 cells, so the side span ends in scalar cells), bottom
+ * and top, a rigid right edge (its outer faces must stay zero); an absorbing block in the bottom-left
+ * corner that continues through both PMLs (held cells in packed side rows and in PML rows); a thin
+ * rigid screen (rows with boundary faces, which take the separate row kernels); an absorbing ceiling
+ * from edge to edge; level maps on.
+ * 2 cm cells, 71 x 64 cells with the PML.
+ */
+function fusedRowsScene(): Scene {
+  return buildScene({
+    domain: { width: 1.28, height: 1.0 },
+    resolution: { kind: "cellSize", cellSize: 0.02 },
+    boundary: { left: { kind: "pml", layerCells: 7 }, bottom: { kind: "pml", layerCells: 6 }, top: { kind: "pml", layerCells: 8 }, right: { kind: "rigid" } },
+    geometry: {
+      solids: [
+        { id: "absorber", label: "Absorber", polygon: [{ x: 0, y: 0 }, { x: 0.2, y: 0 }, { x: 0.2, y: 0.16 }, { x: 0, y: 0.16 }], surface: { kind: "absorption", absorptionCoefficient: 0.7 } },
+        // The rows above its first row are solid from edge to edge: no boundary face, so they are fused,
+        // and the fused pass holds the cells of that first row (behind the absorbing underside) at zero.
+        { id: "ceiling", label: "Ceiling", polygon: [{ x: 0, y: 0.9 }, { x: 1.28, y: 0.9 }, { x: 1.28, y: 1.0 }, { x: 0, y: 1.0 }], surface: { kind: "absorption", absorptionCoefficient: 0.4 } },
+      ],
+      walls: [{ id: "screen", label: "Screen", path: [{ x: 0.9, y: 0.3 }, { x: 0.9, y: 0.62 }], thickness: 0.005 }],
+    },
+    sources: [pointSource("s", 0.37, 0.41, { kind: "ricker", peakFrequency: 1700 })],
+    receivers: [pointReceiver("r", 1.1, 0.5)],
+    duration: { kind: "time", seconds: 0.01 },
+    output: { levelMaps: true },
+  });
+}
+
+/** True when some value of the packed PML pressure part is non-zero: the wave has reached the PML. */
+function pmlIsExcited(sim: Simulation): boolean {
+  const f = new Float32Array(sim.buffer);
+  const end = sim.layout.pmlColumns;
+  for (let k = sim.layout.pmlPressureX; k < end; k++) if (f[k] !== 0) return true;
+  return false;
+}
+
 describe("WebAssembly SIMD kernel", () => {
   it("runs here (Node has WebAssembly SIMD and threads)", () => {
     expect(wasmKernelSupported()).toBe(true);
@@ -94,6 +132,35 @@ describe("WebAssembly SIMD kernel", () => {
 
   it("gives fields bit-identical to the TypeScript kernel with attenuation (the lossy paths)", () => {
     compareKernels({ ...pmlFreeField(), attenuation: { dBPerMetre: 2 } }, 100);
+  });
+
+  it("gives fields bit-identical to the TypeScript kernel where velocity and pressure rows are fused", () => {
+    const simd = compareKernels(fusedRowsScene(), 160);
+    expect(pmlIsExcited(simd)).toBe(true);
+  });
+
+  it("gives fields bit-identical to the TypeScript kernel in the fused rows with attenuation (the lossy spans)", () => {
+    const simd = compareKernels({ ...fusedRowsScene(), attenuation: { dBPerMetre: 3 } }, 120);
+    expect(pmlIsExcited(simd)).toBe(true);
+  });
+
+  it("gives fields bit-identical to the TypeScript kernel in a rigid box without PML, lossless and lossy", () => {
+    const box = buildScene({
+      domain: { width: 0.5, height: 0.34 },
+      resolution: { kind: "cellSize", cellSize: 0.01 },
+      boundary: allSides({ kind: "rigid" }),
+      sources: [pointSource("s", 0.13, 0.2, { kind: "ricker", peakFrequency: 3000 })],
+      duration: { kind: "time", seconds: 0.01 },
+      output: { levelMaps: false },
+    });
+    compareKernels(box, 120);
+    compareKernels({ ...box, attenuation: { dBPerMetre: 5 } }, 60);
+  });
+
+  it("steps the fused rows by strips bit-identically (strips of one and two rows, strip edges in the PMLs)", () => {
+    const scene = fusedRowsScene();
+    const ny = new Simulation(scene).layout.ny;
+    compareKernels(scene, 100, [[0, 1], [1, 3], [3, 7], [7, 30], [30, ny - 5], [ny - 5, ny - 4], [ny - 4, ny]]);
   });
 
   it("gives the hand-computed step on the 3 x 3 box", () => {
