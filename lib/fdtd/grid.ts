@@ -151,14 +151,17 @@ export function deriveGrid(scene: Scene): GridPlan {
     nx,
     ny,
     hasPml: pmlCells.left + pmlCells.right + pmlCells.bottom + pmlCells.top > 0,
+    pmlCells,
     heterogeneous: scene.mediumRegions.length > 0,
     levelMaps: scene.output.levelMaps,
     // Boundary faces are a small fraction of a grid: budget a perimeter's worth for the estimate.
     specialFaceCount: 4 * (nx + ny),
     zeroCellCount: 0,
   });
-  // One byte per cell of solid mask and one float per cell of the final snapshot live outside the state buffer.
-  const memoryBytes = layout.byteLength + cellCount * 5;
+  // One byte per cell of solid mask and one float per cell of the final snapshot live outside the state
+  // buffer, and with the level maps two floats per domain cell of intensity sums (intensity.ts).
+  const intensityBytes = scene.output.levelMaps ? 8 * domainCells.nx * domainCells.ny : 0;
+  const memoryBytes = layout.byteLength + cellCount * 5 + intensityBytes;
 
   return {
     cellSize,
