@@ -30,21 +30,24 @@ export async function listStudiesByTeamId({ teamId }: { teamId: string }): Promi
   });
 }
 
+function toStudyRecord(row: typeof study.$inferSelect): StudyRecord {
+  return {
+    id: row.id,
+    teamId: row.teamId,
+    title: row.title,
+    description: row.description,
+    siteReference: row.siteReference,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
 export async function getStudyById({ id }: { id: string }): Promise<StudyRecord | null> {
   return withDatabaseErrors("read the study", async () => {
     const db = await getDb();
     const rows = await db.select().from(study).where(eq(study.id, id)).limit(1);
     const row = rows[0];
-    if (!row) return null;
-    return {
-      id: row.id,
-      teamId: row.teamId,
-      title: row.title,
-      description: row.description,
-      siteReference: row.siteReference,
-      createdAt: row.createdAt.toISOString(),
-      updatedAt: row.updatedAt.toISOString(),
-    };
+    return row ? toStudyRecord(row) : null;
   });
 }
 
@@ -66,15 +69,7 @@ export async function createStudy({
       .returning();
     if (!row) throw new Error("insert returned no row");
     await recordActivity({ teamId, studyId: id, actorId: createdBy, action: "study.created", subjectType: "study", subjectId: id, detail: { title: input.title } });
-    return {
-      id: row.id,
-      teamId: row.teamId,
-      title: row.title,
-      description: row.description,
-      siteReference: row.siteReference,
-      createdAt: row.createdAt.toISOString(),
-      updatedAt: row.updatedAt.toISOString(),
-    };
+    return toStudyRecord(row);
   });
 }
 
