@@ -2,7 +2,7 @@
 // One scene: what it is, what grid it implies, and running it in this browser with the field
 // shown live and, afterwards, replayable over the snapshots.
 import Link from "next/link";
-import { useEffect, useMemo } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { RunPanel } from "@/components/run/run-panel";
 import { rememberSessionRun } from "@/components/run/session-runs";
 import { useBrowserRun } from "@/components/run/use-browser-run";
@@ -17,10 +17,12 @@ import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene } from "@/lib/fdtd/scene";
 import { GridFigures } from "./grid-figures";
 import { RunViewer } from "./run-viewer";
+import { SceneEditPanel } from "./scene-edit-panel";
 
 export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId: string }) {
   const query = useScene(sceneId);
   const run = useBrowserRun();
+  const [view, setView] = useState<"run" | "edit">("run");
   const parsed = useMemo(() => (query.data ? parseScene(query.data.scene.data) : null), [query.data]);
   const grid = useMemo(() => (parsed?.ok ? deriveGrid(parsed.scene) : null), [parsed]);
   const finished = run.state.phase === "finished" ? run.state.result : null;
@@ -65,7 +67,24 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
         <ErrorState title="This scene does not validate" message={parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ")} />
       ) : null}
 
-      {parsed?.ok && grid ? (
+      <div role="tablist" aria-label="Scene views" className="flex gap-1 border-b border-rule">
+        {(["run", "edit"] as const).map((tab) => (
+          <button
+            key={tab}
+            type="button"
+            role="tab"
+            aria-selected={view === tab}
+            onClick={() => setView(tab)}
+            className={`-mb-px border-b-2 px-4 py-2 text-sm font-medium transition ${view === tab ? "border-tide-600 text-ink" : "border-transparent text-muted hover:text-ink"}`}
+          >
+            {tab === "run" ? "Run and results" : roleAllows(role, "scene:edit") ? "Edit scene" : "Scene details"}
+          </button>
+        ))}
+      </div>
+
+      {view === "edit" ? <SceneEditPanel record={current} role={role} /> : null}
+
+      {view === "run" && parsed?.ok && grid ? (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
           <div className="flex flex-col gap-4">
             <div className="rounded-lg border border-rule bg-panel p-4">

@@ -1,0 +1,1 @@
+import "monaco-editor/language/json/json.worker.js";
