@@ -3,7 +3,8 @@
 // coefficient, or a real normalised impedance; and, for the outer boundary, a PML. Switching between
 // them carries the acoustic value over (absorption <-> impedance), so a choice never resets the number.
 import type { Edge, SurfaceTreatment } from "@/lib/fdtd/scene";
-import { absorptionFromImpedance, impedanceFromAbsorption, MATERIAL_IDS, MATERIALS, materialImpedance, reflectionFromImpedance, type MaterialId } from "@/lib/fdtd/materials";
+import { absorptionFromImpedance, MATERIAL_IDS, MATERIALS, reflectionFromImpedance, type MaterialId } from "@/lib/fdtd/materials";
+import { treatmentImpedance } from "@/lib/fdtd/rasterise";
 import { DEFAULT_PML_CELLS } from "@/lib/fdtd/scene";
 
 import { formatNumber, NumberField, Readout, SelectField, type Choice, type Commit } from "./inspector-fields";
@@ -20,19 +21,8 @@ const TREATMENT_CHOICES: Choice<TreatmentKind>[] = [
 
 const MATERIAL_CHOICES: Choice<MaterialId>[] = MATERIAL_IDS.map((id) => ({ value: id, label: `${MATERIALS[id].label} · α ${MATERIALS[id].absorption}` }));
 
-/** Real normalised impedance of a treatment (Infinity when rigid). */
-export function treatmentImpedance(treatment: SurfaceTreatment): number {
-  switch (treatment.kind) {
-    case "rigid":
-      return Infinity;
-    case "impedance":
-      return treatment.normalisedImpedance;
-    case "absorption":
-      return impedanceFromAbsorption(treatment.absorptionCoefficient);
-    case "material":
-      return materialImpedance(treatment.material);
-  }
-}
+// The solver's own conversion (lib/fdtd/rasterise), so the inspector shows exactly what the grid will use.
+export { treatmentImpedance };
 
 /** The treatment of `kind` closest in effect to `current`. */
 export function convertTreatment(current: SurfaceTreatment, kind: TreatmentKind): SurfaceTreatment {
