@@ -47,6 +47,10 @@ export interface CodeViewHandle {
 
 let modelCounter = 0;
 
+function markerSignature(markers: readonly MonacoApi.editor.IMarker[]): string {
+  return markers.map((m) => `${m.owner}:${m.startLineNumber}:${m.startColumn}:${m.endLineNumber}:${m.endColumn}:${m.message}`).join("|");
+}
+
 const CodeViewInner = forwardRef<CodeViewHandle, CodeViewProps>(function CodeView({ scene, onSceneChange, onTypingEnd, readOnly }, ref) {
   const [monaco, setMonaco] = useState<Monaco | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
@@ -64,7 +68,8 @@ const CodeViewInner = forwardRef<CodeViewHandle, CodeViewProps>(function CodeVie
   const readTimer = useRef<number | null>(null);
   const markTimer = useRef<number | null>(null);
   const sceneProblems = useRef<SceneProblem[]>([]);
-  const lastMarkers = useRef("");
+  /** The JSON worker's markers when ours were last placed: ours depend on them (no line marked twice). */
+  const schemaMarkersSeen = useRef("");
   const latest = useRef({ scene, onSceneChange, onTypingEnd });
   useLayoutEffect(() => {
     latest.current = { scene, onSceneChange, onTypingEnd };
@@ -104,12 +109,9 @@ const CodeViewInner = forwardRef<CodeViewHandle, CodeViewProps>(function CodeVie
     const model = editorRef.current?.getModel();
     if (!api || !model) return;
     const text = model.getValue();
-    const schemaLines = new Set(
-      api.editor
-        .getModelMarkers({ resource: model.uri })
-        .filter((m) => m.owner !== MARKER_OWNER)
-        .map((m) => m.startLineNumber),
-    );
+    const schemaMarkers = api.editor.getModelMarkers({ resource: model.uri }).filter((m) => m.owner !== MARKER_OWNER);
+    schemaMarkersSeen.current = markerSignature(schemaMarkers);
+    const schemaLines = new Set(schemaMarkers.map((m) => m.startLineNumber));
     const markers: MonacoApi.editor.IMarkerData[] = [];
     for (const problem of sceneProblems.current) {
       const located = locateJsonPath(text, problem.pathSegments);
@@ -129,11 +131,7 @@ const CodeViewInner = forwardRef<CodeViewHandle, CodeViewProps>(function CodeVie
         source: "scene",
       });
     }
-    const signature = JSON.stringify(markers);
-    if (signature !== lastMarkers.current) {
-      lastMarkers.current = signature;
-      api.editor.setModelMarkers(model, MARKER_OWNER, markers);
-    }
+    api.editor.setModelMarkers(model, MARKER_OWNER, markers);
   }, []);
 
   /** Reads the text: pushes a valid scene to the canvas, otherwise shows why not. */
@@ -221,7 +219,9 @@ const CodeViewInner = forwardRef<CodeViewHandle, CodeViewProps>(function CodeVie
         api.editor.onDidChangeMarkers((uris) => {
           const model = editor.getModel();
           if (!model || !uris.some((uri) => uri.toString() === model.uri.toString())) return;
-          refreshSceneMarkers();
+          // Re-place ours only when the schema's changed; our own change must not set them again (a loop).
+          const schemaMarkers = api.editor.getModelMarkers({ resource: model.uri }).filter((m) => m.owner !== MARKER_OWNER);
+          if (markerSignature(schemaMarkers) !== schemaMarkersSeen.current) refreshSceneMarkers();
           listProblems();
         }),
         editor.onDidBlurEditorText(() => {

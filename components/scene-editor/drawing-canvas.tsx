@@ -7,7 +7,9 @@ import { forwardRef, useCallback, useEffect, useImperativeHandle, useLayoutEffec
 
 import type { Point, Scene } from "@/lib/fdtd/scene";
 
-import { CANVAS_COLOURS, renderOverlay, renderStaticLayer, RULER_SIZE, type DrawingPreview } from "./canvas-render";
+import { CANVAS_COLOURS, RULER_SIZE } from "./canvas-style";
+import { renderOverlay, type DrawingPreview } from "./render-overlay";
+import { renderStaticLayer } from "./render-static-layer";
 import { addDrawingPoint, closesOutline, finishDrawing, finishesOnClick, type DrawingSettings } from "./model/drawing";
 import type { Selection } from "./model/editor-state";
 import { DRAW_ORDER, entitiesOf, entityPoints, sameRef, type EntityRef } from "./model/entities";
@@ -224,7 +226,8 @@ export const DrawingCanvas = forwardRef<DrawingCanvasHandle, DrawingCanvasProps>
       snapMark: snapMark.current,
       fontFamily: fonts.sans,
       monoFontFamily: fonts.mono,
-      decimals: decimalsForStep(gridStepForZoom(currentView.pixelsPerMetre, 14)),
+      // One decimal finer than the grid: a segment drawn between grid points may run diagonally.
+      decimals: Math.min(3, decimalsForStep(gridStepForZoom(currentView.pixelsPerMetre, 14)) + 1),
     });
   }, [fonts]);
 

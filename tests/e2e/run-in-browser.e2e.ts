@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
 import { sceneTemplates } from "@/lib/scene-templates";
 import { keepScreenshot, openBrowser } from "./browser";
+import { DashboardPage } from "./pages/dashboard-page";
 import { SignInPage } from "./pages/sign-in-page";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
@@ -81,10 +82,11 @@ describe("running a scene in the browser", () => {
 
   it("pauses and cancels a longer run, which stops and frees its workers", async () => {
     // A finer version of the barrier template: long enough to pause, large enough for two threads.
-    await page.goto("/dashboard");
-    await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-    await page.waitForURL("**/studies/**");
-    const studyId = page.url().split("/studies/")[1]!;
+    // In a study of its own, so the seeded demo study stays as the other browser tests expect it.
+    const teamId = await new DashboardPage(page).activeTeamId();
+    const study = await page.request.post(`/api/teams/${teamId}/studies`, { data: { title: "Fine barrier check (browser test)" } });
+    expect(study.status()).toBe(201);
+    const studyId = ((await study.json()) as { study: { id: string } }).study.id;
     const template = sceneTemplates.find((t) => t.id === "roadside-barrier")!;
     const created = await page.request.post(`/api/studies/${studyId}/scenes`, {
       data: { name: "Fine barrier check", data: { ...template.scene, name: "Fine barrier check", resolution: { kind: "frequency", maxFrequency: 1000, pointsPerWavelength: 10 }, duration: { kind: "time", seconds: 0.4 } } },

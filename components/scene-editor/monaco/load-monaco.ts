@@ -73,7 +73,6 @@ export function loadMonaco(): Promise<Monaco> {
     };
     const monaco = await import("monaco-editor");
     loader.config({ monaco });
-    (window as unknown as { __debugMonaco: unknown }).__debugMonaco = monaco; // DEBUG-REMOVE
     defineTheme(monaco);
     monaco.json.jsonDefaults.setDiagnosticsOptions({
       validate: true,

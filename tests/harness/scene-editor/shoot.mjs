@@ -385,17 +385,6 @@ try {
   if (problems.length) throw new Error(`the page reported:\n${problems.join("\n")}`);
   console.log("all steps passed");
 } catch (error) {
-  const squiggles = await page.evaluate(() => [...document.querySelectorAll(".squiggly-error")].map((e) => `${e.className} ${JSON.stringify(e.getBoundingClientRect())}`)).catch(() => []);
-  console.error("squiggles:", squiggles);
-  const info = await page.evaluate(() => {
-    const m = window.__debugMonaco;
-    if (!m) return "no monaco";
-    const model = m.editor.getModels()[0];
-    const markers = m.editor.getModelMarkers({ resource: model.uri }).map((k) => `${k.owner} ${k.startLineNumber}:${k.startColumn}-${k.endLineNumber}:${k.endColumn} ${k.message.slice(0, 40)}`);
-    const decorations = model.getAllDecorations().filter((d) => /squiggly/.test(d.options.className ?? "")).map((d) => `${d.options.className} ${d.range.startLineNumber}:${d.range.startColumn}-${d.range.endLineNumber}:${d.range.endColumn}`);
-    return { markers, decorations, version: model.getVersionId(), line80: model.getLineContent(80) };
-  }).catch((e) => String(e));
-  console.error("monaco:", JSON.stringify(info));
   if (process.env.SHOOT_DEBUG) {
     const session = await context.newCDPSession(page);
     const alive = await Promise.race([page.evaluate(() => "main thread answers"), new Promise((resolve) => setTimeout(() => resolve("main thread busy"), 5000))]);
