@@ -1,8 +1,9 @@
 // A kernel provider that steps one simulation on several threads: the state lives in shared
-// memory, the grid is split into horizontal strips, and each phase of a step (sweep, finish,
-// flush) runs on all strips at once with a barrier between phases (strip-sync.ts). Helper threads
-// are started by the platform (browser Workers or Node worker_threads) through `startHelper`.
-// Fields are bit-identical to a single-thread run: the same phases on the same strips.
+// memory, the grid is split into horizontal strips, and the sweep and flush phases of a step run on
+// all strips at once with a barrier after each (strip-sync.ts); the one-row finishing phase runs on
+// this thread alone. Helper threads are started by the platform (browser Workers or Node
+// worker_threads) through `startHelper`. Fields are bit-identical to a single-thread run: the same
+// operations on the same rows.
 import type { StepKernel } from "../kernel";
 import { createTypeScriptKernel } from "../kernel";
 import type { KernelProvider } from "../kernel-provider";
@@ -85,7 +86,7 @@ export function parallelKernelProvider(options: ParallelKernelOptions): Parallel
         });
       }
       let ready = helperCount === 0;
-      const phase = (command: (typeof StripCommand)["sweep" | "finish" | "flush"], runOwn: () => void) => {
+      const phase = (command: (typeof StripCommand)["sweep" | "flush"], runOwn: () => void) => {
         if (!ready) {
           awaitHelpersReady(sync, helperCount);
           ready = true;
@@ -96,7 +97,11 @@ export function parallelKernelProvider(options: ParallelKernelOptions): Parallel
       return {
         name: `${own.name} x${strips.length}`,
         sweepStrip: () => phase(StripCommand.sweep, () => own.sweepStrip(ownStrip[0], ownStrip[1])),
-        finishStrip: () => phase(StripCommand.finish, () => own.finishStrip(ownStrip[0], ownStrip[1])),
+        // Finishing is one pressure row per strip: cheaper for this thread to do them all than to
+        // pay a second barrier every step (the helpers are idle at the barrier after the sweep anyway).
+        finishStrip: () => {
+          for (const [y0, y1] of strips) own.finishStrip(y0, y1);
+        },
         flushStrip: () => phase(StripCommand.flush, () => own.flushStrip(ownStrip[0], ownStrip[1])),
       };
     },

@@ -8,7 +8,6 @@ export function runStripHelper(init: StripHelperInit): void {
   const [y0, y1] = init.strip;
   serveStrip(init.sync, {
     sweep: () => kernel.sweepStrip(y0, y1),
-    finish: () => kernel.finishStrip(y0, y1),
     flush: () => kernel.flushStrip(y0, y1),
   });
 }

@@ -1,6 +1,6 @@
 // The lock-step protocol between one coordinating thread and the helper threads that step the
 // other strips of the same grid. One small Int32Array in shared memory carries it:
-//   [COMMAND]    what to do next (sweep, finish, flush, quit)
+//   [COMMAND]    what to do next (sweep, flush, quit)
 //   [GENERATION] bumped by the coordinator for every phase; helpers wait for it to change
 //   [DONE]       helpers that finished the current phase
 //   [READY]      helpers that have built their kernel
@@ -9,7 +9,7 @@
 // own strip, then waits until DONE equals the helper count. That barrier is what keeps the halo rows
 // of neighbouring strips consistent.
 
-export const StripCommand = { sweep: 1, finish: 2, flush: 3, quit: 4 } as const;
+export const StripCommand = { sweep: 1, flush: 3, quit: 4 } as const;
 export type StripCommandValue = (typeof StripCommand)[keyof typeof StripCommand];
 
 const COMMAND = 0;
@@ -59,7 +59,6 @@ export function releaseHelpers(sync: Int32Array): void {
 
 export interface StripOperations {
   sweep(): void;
-  finish(): void;
   flush(): void;
 }
 
@@ -77,7 +76,6 @@ export function serveStrip(sync: Int32Array, operations: StripOperations): void 
     if (command === StripCommand.quit) return;
     try {
       if (command === StripCommand.sweep) operations.sweep();
-      else if (command === StripCommand.finish) operations.finish();
       else if (command === StripCommand.flush) operations.flush();
     } catch (error) {
       Atomics.store(sync, FAILED, 1);
