@@ -1,6 +1,6 @@
 "use client";
-// The editor's toolbar: drawing tools (hidden when read-only), undo and redo, display toggles, zoom,
-// the view switch between drawing, split and code, and the keyboard help.
+// The editor's toolbar: drawing tools (hidden when read-only), undo and redo, imports, display toggles,
+// zoom, the view switch between drawing, split and code, and the keyboard help.
 import type { ReactNode } from "react";
 
 import type { DrawingSettings } from "./model/drawing";
@@ -82,6 +82,8 @@ export interface EditorToolbarProps {
   onHelp: (open: boolean) => void;
   settings: DrawingSettings;
   onSettings: (settings: DrawingSettings) => void;
+  /** Opens the import dialog; no button without it, and none when read only. */
+  onImport?: () => void;
 }
 
 const VIEW_CHOICES: { value: ViewMode; label: string }[] = [
@@ -145,6 +147,20 @@ export function EditorToolbar(props: EditorToolbarProps) {
           <ToolbarButton label="Redo" shortcut={platformKeys("Shift+Mod+Z", mac)} disabled={!props.canRedo} onClick={props.onRedo} testId="redo">
             <RedoIcon />
           </ToolbarButton>
+          {props.onImport ? (
+            <>
+              <Divider />
+              <button
+                type="button"
+                title="Import a drawing (.dxf), coordinates (.csv) or a recording (.wav)"
+                onClick={props.onImport}
+                data-testid="import-open"
+                className="flex h-8 items-center rounded-md px-2.5 text-[12.5px] font-medium text-ink-soft transition-colors hover:bg-ink/[0.06] hover:text-ink"
+              >
+                Import…
+              </button>
+            </>
+          ) : null}
           <Divider />
           <ToolbarButton label={props.snapping ? "Snapping on" : "Snapping off"} shortcut="G" active={props.snapping} toggle onClick={() => props.onSnapping(!props.snapping)} disabled={!canvasVisible}>
             <MagnetIcon />

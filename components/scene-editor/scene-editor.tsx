@@ -2,7 +2,7 @@
 // The scene editor: a drawing canvas and a code view of the same scene kept in step, an inspector for
 // the selection or the scene's settings, and the numbers the scene implies. It holds the undo history
 // and reports every change through `onChange`; saving is the parent's business.
-import { useCallback, useEffect, useMemo, useReducer, useRef, useState, type KeyboardEvent as ReactKeyboardEvent } from "react";
+import { lazy, Suspense, useCallback, useEffect, useMemo, useReducer, useRef, useState, type KeyboardEvent as ReactKeyboardEvent } from "react";
 
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene, type Scene, type SceneInput } from "@/lib/fdtd/scene";
@@ -22,6 +22,9 @@ import { sameSceneData } from "./model/scene-text";
 import { entityAtPath, splitJsonPath } from "./model/scene-paths";
 import { platformKeys, toolForKey, toolSpec, type ToolId } from "./model/tools";
 import { isMacPlatform } from "./keyboard-help";
+
+// The import dialog and its file readers (DXF, CSV, WAV) load only when someone opens it.
+const ImportDialog = lazy(() => import("./import/import-dialog").then((module) => ({ default: module.ImportDialog })));
 
 export interface SceneEditorProps {
   /** The scene to edit; a new object that differs from what the editor last reported starts a fresh history. */
@@ -71,6 +74,7 @@ function ValidSceneEditor({ scene: incoming, initialScene, onChange, readOnly = 
   const [showGrid, setShowGrid] = useState(true);
   const [showLabels, setShowLabels] = useState(true);
   const [helpOpen, setHelpOpen] = useState(false);
+  const [importOpen, setImportOpen] = useState(false);
   const [settings, setSettings] = useState<DrawingSettings>(DEFAULT_DRAWING_SETTINGS);
   const [notice, setNotice] = useState<string | null>(null);
   const canvas = useRef<DrawingCanvasHandle>(null);
@@ -279,7 +283,19 @@ function ValidSceneEditor({ scene: incoming, initialScene, onChange, readOnly = 
         onHelp={setHelpOpen}
         settings={settings}
         onSettings={setSettings}
+        onImport={() => setImportOpen(true)}
       />
+      {importOpen && !readOnly ? (
+        <Suspense fallback={null}>
+          <ImportDialog
+            scene={scene}
+            preferredSourceId={selection?.ref.kind === "source" ? selection.ref.id : null}
+            onApply={(next) => tryApply(next)}
+            onImported={(message) => setNotice(`${message} ${platformKeys("Mod+Z", isMacPlatform())} undoes it.`)}
+            onClose={() => setImportOpen(false)}
+          />
+        </Suspense>
+      ) : null}
       <div className="flex min-h-0 flex-1">
         <div className="flex min-w-0 flex-1 flex-col">
           <div className="flex min-h-0 flex-1">
