@@ -1,6 +1,7 @@
 // The shapes the API answers with, shared by db/queries (which build them) and the client
 // (which reads them). Dates travel as ISO strings.
 import type { TeamRole } from "@/lib/access/roles";
+import type { RunSummary } from "@/lib/run-record/summary";
 
 export interface TeamMembershipSummary {
   teamId: string;
@@ -104,6 +105,16 @@ export interface SceneResponse {
   role: TeamRole;
 }
 
+export interface SceneVersionsResponse {
+  versions: SceneVersionItem[];
+}
+
+/** One saved version's scene JSON, as stored (it may predate the current scene schema). */
+export interface SceneVersionDataResponse {
+  version: number;
+  data: unknown;
+}
+
 export type BlockKind = "notes" | "scene" | "run" | "chart";
 
 export interface BlockItem {
@@ -119,4 +130,46 @@ export interface BlockItem {
 
 export interface BlocksResponse {
   blocks: BlockItem[];
+}
+
+// Saved runs (issue #6). The payload itself travels as bytes (lib/run-record/payload.ts); these
+// are the JSON answers about it.
+
+export type RunStatusName = "queued" | "running" | "completed" | "failed" | "cancelled";
+
+/** The summary figures a list shows: the run's summary without its per-receiver rows and warning texts. */
+export type RunListFigures = Omit<RunSummary, "receivers" | "warnings"> & { warningCount: number };
+
+export interface RunListItem {
+  id: string;
+  studyId: string;
+  /** Null once the scene has been deleted; the run keeps its frozen copy. */
+  sceneId: string | null;
+  sceneName: string | null;
+  sceneVersion: number;
+  status: RunStatusName;
+  statusMessage: string;
+  createdById: string | null;
+  createdByName: string | null;
+  createdAt: string;
+  inputHash: string;
+  solverVersion: string;
+  /** Size of the stored payload, bytes. */
+  resultBytes: number;
+  figures: RunListFigures | null;
+}
+
+export interface RunRecord extends Omit<RunListItem, "figures"> {
+  teamId: string;
+  settings: unknown;
+  summary: RunSummary | null;
+}
+
+export interface RunsResponse {
+  runs: RunListItem[];
+}
+
+export interface RunResponse {
+  run: RunRecord;
+  role: TeamRole;
 }

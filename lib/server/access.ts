@@ -2,9 +2,10 @@
 // their role in the owning team allows the action.
 import "server-only";
 import { getBlockById } from "@/db/queries/blocks";
+import { getRunById } from "@/db/queries/runs";
 import { getSceneById } from "@/db/queries/scenes";
 import { getStudyById } from "@/db/queries/studies";
-import type { BlockItem, SceneRecord, StudyRecord } from "@/lib/http/api-types";
+import type { BlockItem, RunRecord, SceneRecord, StudyRecord } from "@/lib/http/api-types";
 import { getMembershipRole } from "@/db/queries/teams";
 import { decideAccess } from "@/lib/access/decide";
 import type { TeamAction, TeamRole } from "@/lib/access/roles";
@@ -89,4 +90,19 @@ export async function requireBlockAccess({
   const role = study ? await getMembershipRole({ teamId: study.teamId, userId: caller.userId }) : null;
   enforce(decideAccess({ signedIn: true, role, action }), "block", action);
   return { block: block!, study: study!, role: role! };
+}
+
+export async function requireRunAccess({
+  caller,
+  runId,
+  action,
+}: {
+  caller: Caller;
+  runId: string;
+  action: TeamAction;
+}): Promise<{ run: RunRecord; role: TeamRole }> {
+  const run = await getRunById({ id: runId });
+  const role = run ? await getMembershipRole({ teamId: run.teamId, userId: caller.userId }) : null;
+  enforce(decideAccess({ signedIn: true, role, action }), "run", action);
+  return { run: run!, role: role! };
 }
