@@ -6,6 +6,7 @@ import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from "
 import { createRunControl, RunState, setRunState, type RunControl } from "@/lib/fdtd/run-control";
 import type { FieldSnapshot, ProgressReport, SimulationResult } from "@/lib/fdtd/simulation";
 import type { SimulationWorkerApi } from "@/workers/simulation.worker";
+import { browserRunThreads } from "./run-in-worker";
 
 export type RunPhase = "idle" | "starting" | "running" | "paused" | "finished" | "cancelled" | "failed";
 
@@ -28,9 +29,6 @@ export interface BrowserRunState {
   /** The kernel and thread count the run uses, once it has started. */
   engine: { kernel: string; threads: number } | null;
 }
-
-/** Threads for one run: the machine's cores, capped (the page and the browser need some too). */
-const maximumThreads = 8;
 
 const initialState = (isolated: boolean): BrowserRunState => ({ phase: "idle", progress: null, frame: null, result: null, error: null, isolated, engine: null });
 
@@ -98,8 +96,7 @@ export function useBrowserRun() {
         },
       });
 
-      const threads = isolated ? Math.max(1, Math.min(maximumThreads, navigator.hardwareConcurrency || 1)) : 1;
-      const outcome = await api.current.run(scene, control.current, callbacks, threads);
+      const outcome = await api.current.run(scene, control.current, callbacks, browserRunThreads());
       release();
       if (outcome.ok) {
         const phase: RunPhase = outcome.result.stoppedBy === "cancelled" ? "cancelled" : "finished";
