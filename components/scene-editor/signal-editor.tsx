@@ -1,11 +1,12 @@
 "use client";
-// A source's signal: its kind and parameters, and how high its spectrum reaches compared with the
-// band the grid resolves (the same -30 dB band edge the solver's warning uses).
+// A source's signal: its kind and parameters, how high its spectrum reaches compared with the band
+// the grid resolves (the same -30 dB band edge the solver's warning uses), and a plot of both.
 import type { GridPlan } from "@/lib/fdtd/grid";
 import type { Signal } from "@/lib/fdtd/scene";
 import { prepareSignal } from "@/lib/fdtd/signals";
 
 import { formatNumber, NumberField, SelectField, type Choice, type Commit } from "./inspector-fields";
+import { SignalPlot } from "./signal-plot";
 
 type SignalKind = Signal["kind"];
 
@@ -115,6 +116,7 @@ export function SignalEditor({ signal, grid, onCommit }: { signal: Signal; grid:
         the grid resolves <span className="font-mono text-ink">{Math.round(resolved)} Hz</span>.
         {aboveBand ? <span className="font-medium text-signal-warn"> Above the band: expect dispersion error.</span> : null}
       </p>
+      <SignalPlot signal={signal} grid={grid} />
     </div>
   );
 }

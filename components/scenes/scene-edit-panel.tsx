@@ -4,7 +4,7 @@
 // draft as a new variant. Nothing typed is lost.
 import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { SceneEditor } from "@/components/scene-editor/scene-editor";
 import { Button } from "@/components/ui/button";
 import { ErrorState } from "@/components/ui/states";
@@ -14,7 +14,16 @@ import { queryKeys } from "@/lib/client/queries";
 import type { Scene } from "@/lib/fdtd/scene";
 import type { SceneRecord } from "@/lib/http/api-types";
 
-export function SceneEditPanel({ record, role }: { record: SceneRecord; role: TeamRole }) {
+export function SceneEditPanel({
+  record,
+  role,
+  onUnsavedChange,
+}: {
+  record: SceneRecord;
+  role: TeamRole;
+  /** Told whether there are unsaved edits, so that other views (the history's restore) can wait for them. */
+  onUnsavedChange?: (unsaved: boolean) => void;
+}) {
   const client = useQueryClient();
   const router = useRouter();
   const [draft, setDraft] = useState<Scene | null>(null);
@@ -22,6 +31,8 @@ export function SceneEditPanel({ record, role }: { record: SceneRecord; role: Te
   const [state, setState] = useState<"editing" | "saving" | "conflict">("editing");
   const [failure, setFailure] = useState<string | null>(null);
   const canEdit = roleAllows(role, "scene:edit");
+  const unsaved = draft !== null;
+  useEffect(() => onUnsavedChange?.(unsaved), [unsaved, onUnsavedChange]);
 
   const refresh = () =>
     Promise.all([

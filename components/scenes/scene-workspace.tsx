@@ -16,13 +16,17 @@ import { useScene } from "@/lib/client/queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene } from "@/lib/fdtd/scene";
 import { GridFigures } from "./grid-figures";
+import { SceneHistory } from "./history/scene-history";
 import { RunViewer } from "./run-viewer";
 import { SceneEditPanel } from "./scene-edit-panel";
 
 export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId: string }) {
   const query = useScene(sceneId);
   const run = useBrowserRun();
-  const [view, setView] = useState<"run" | "edit">("run");
+  const [view, setView] = useState<"run" | "edit" | "history">("run");
+  // The editor stays mounted once opened (hidden on the other tabs), so a draft survives a look at the history.
+  const [editorOpened, setEditorOpened] = useState(false);
+  const [unsavedEdits, setUnsavedEdits] = useState(false);
   const parsed = useMemo(() => (query.data ? parseScene(query.data.scene.data) : null), [query.data]);
   const grid = useMemo(() => (parsed?.ok ? deriveGrid(parsed.scene) : null), [parsed]);
   const finished = run.state.phase === "finished" ? run.state.result : null;
@@ -68,21 +72,29 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
       ) : null}
 
       <div role="tablist" aria-label="Scene views" className="flex gap-1 border-b border-rule">
-        {(["run", "edit"] as const).map((tab) => (
+        {(["run", "edit", "history"] as const).map((tab) => (
           <button
             key={tab}
             type="button"
             role="tab"
             aria-selected={view === tab}
-            onClick={() => setView(tab)}
+            onClick={() => {
+              setView(tab);
+              if (tab === "edit") setEditorOpened(true);
+            }}
             className={`-mb-px border-b-2 px-4 py-2 text-sm font-medium transition ${view === tab ? "border-tide-600 text-ink" : "border-transparent text-muted hover:text-ink"}`}
           >
-            {tab === "run" ? "Run and results" : roleAllows(role, "scene:edit") ? "Edit scene" : "Scene details"}
+            {tab === "run" ? "Run and results" : tab === "history" ? "History" : roleAllows(role, "scene:edit") ? "Edit scene" : "Scene details"}
           </button>
         ))}
       </div>
 
-      {view === "edit" ? <SceneEditPanel record={current} role={role} /> : null}
+      {editorOpened ? (
+        <div hidden={view !== "edit"}>
+          <SceneEditPanel record={current} role={role} onUnsavedChange={setUnsavedEdits} />
+        </div>
+      ) : null}
+      {view === "history" ? <SceneHistory record={current} role={role} hasUnsavedEdits={unsavedEdits} /> : null}
 
       {view === "run" && parsed?.ok && grid ? (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">

@@ -129,16 +129,72 @@ export async function saveSceneVersion({
       return { version: next, studyId: row.studyId };
     });
   });
-  if (!saved) {
-    const current = await getSceneById({ id: sceneId });
-    throw new AppError(
-      "conflict:scene",
-      current
-        ? `Someone saved version ${current.version} of this scene${current.updatedByName ? ` (${current.updatedByName})` : ""} after you opened version ${baseVersion}. Reload it, or keep your copy as a new variant.`
-        : "The scene no longer exists.",
-    );
-  }
+  if (!saved) throw await staleVersionError({ sceneId, baseVersion });
   await recordActivity({ teamId, studyId: saved.studyId, actorId: authorId, action: "scene.saved", subjectType: "scene", subjectId: sceneId, detail: { name, version: saved.version, note } });
+  return { version: saved.version };
+}
+
+/** The 409 for a change based on a version that is no longer the latest, naming who saved the newer one. */
+async function staleVersionError({ sceneId, baseVersion }: { sceneId: string; baseVersion: number }): Promise<AppError> {
+  const current = await getSceneById({ id: sceneId });
+  return new AppError(
+    "conflict:scene",
+    current
+      ? `Someone saved version ${current.version} of this scene${current.updatedByName ? ` (${current.updatedByName})` : ""} after you opened version ${baseVersion}. Reload it, or keep your copy as a new variant.`
+      : "The scene no longer exists.",
+  );
+}
+
+/**
+ * Makes an older version the latest again by saving its data as a new version (the history only
+ * grows, so the restore itself can be undone). The same 409 rule as a save applies: the caller must
+ * have seen the current version. `prepareData` turns the stored JSON into a current, valid scene
+ * (stored versions may predate a schema change); it may throw to refuse the restore.
+ */
+export async function restoreSceneVersion({
+  teamId,
+  sceneId,
+  authorId,
+  version,
+  baseVersion,
+  prepareData,
+}: {
+  teamId: string;
+  sceneId: string;
+  authorId: string;
+  version: number;
+  baseVersion: number;
+  prepareData: (stored: unknown) => SceneData;
+}): Promise<{ version: number }> {
+  const stored = await getSceneVersionData({ sceneId, version });
+  if (stored === null) throw new AppError("not_found:version", `This scene has no version ${version}.`);
+  const data = prepareData(stored);
+  const note = `Restored version ${version}`;
+  const saved = await withDatabaseErrors("restore the scene version", async () => {
+    const db = await getDb();
+    return db.transaction(async (tx) => {
+      const next = baseVersion + 1;
+      const updated = await tx
+        .update(scene)
+        .set({ data, version: next, updatedBy: authorId, updatedAt: new Date() })
+        .where(and(eq(scene.id, sceneId), eq(scene.version, baseVersion)))
+        .returning({ studyId: scene.studyId, name: scene.name });
+      const row = updated[0];
+      if (!row) return null;
+      await tx.insert(sceneVersion).values({ id: newId(), sceneId, version: next, data, authorId, note });
+      return { version: next, studyId: row.studyId, name: row.name };
+    });
+  });
+  if (!saved) throw await staleVersionError({ sceneId, baseVersion });
+  await recordActivity({
+    teamId,
+    studyId: saved.studyId,
+    actorId: authorId,
+    action: "scene.saved",
+    subjectType: "scene",
+    subjectId: sceneId,
+    detail: { name: saved.name, version: saved.version, note, restoredVersion: version },
+  });
   return { version: saved.version };
 }
 

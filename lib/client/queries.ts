@@ -1,7 +1,19 @@
 "use client";
 // TanStack Query hooks over the API routes: one place names every query key.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { BlockItem, BlocksResponse, MeResponse, SceneRecord, SceneResponse, StudiesResponse, StudyRecord, StudyResponse, TeamMember } from "@/lib/http/api-types";
+import type {
+  BlockItem,
+  BlocksResponse,
+  MeResponse,
+  SceneRecord,
+  SceneResponse,
+  SceneVersionDataResponse,
+  SceneVersionsResponse,
+  StudiesResponse,
+  StudyRecord,
+  StudyResponse,
+  TeamMember,
+} from "@/lib/http/api-types";
 import type { StudyInput } from "@/lib/validation/study";
 import { fetchJson } from "./api";
 
@@ -11,6 +23,9 @@ export const queryKeys = {
   study: (studyId: string) => ["studies", studyId] as const,
   members: (teamId: string) => ["teams", teamId, "members"] as const,
   scene: (sceneId: string) => ["scenes", sceneId] as const,
+  // Outside ["scenes", id]: refreshing a scene must not refetch every stored version, which never change.
+  sceneVersions: (sceneId: string) => ["scene-versions", sceneId] as const,
+  sceneVersion: (sceneId: string, version: number) => ["scene-versions", sceneId, version] as const,
   blocks: (studyId: string) => ["studies", studyId, "blocks"] as const,
 };
 
@@ -48,6 +63,35 @@ export function useTeamMembers(teamId: string | null) {
 
 export function useScene(sceneId: string) {
   return useQuery({ queryKey: queryKeys.scene(sceneId), queryFn: () => fetchJson<SceneResponse>(`/api/scenes/${sceneId}`) });
+}
+
+export function useSceneVersions(sceneId: string) {
+  return useQuery({ queryKey: queryKeys.sceneVersions(sceneId), queryFn: () => fetchJson<SceneVersionsResponse>(`/api/scenes/${sceneId}/versions`) });
+}
+
+/** A saved version's JSON; kept for the page's life, since a saved version never changes. */
+export function sceneVersionQuery(sceneId: string, version: number) {
+  return {
+    queryKey: queryKeys.sceneVersion(sceneId, version),
+    queryFn: () => fetchJson<SceneVersionDataResponse>(`/api/scenes/${sceneId}/versions/${version}`),
+    staleTime: Infinity,
+  };
+}
+
+/** Restores an older version as a new one; the scene, its history and the study's activity refresh. */
+export function useRestoreSceneVersion(record: { id: string; studyId: string }) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { version: number; baseVersion: number }) =>
+      fetchJson<{ scene: SceneRecord }>(`/api/scenes/${record.id}/versions/${input.version}/restore`, { method: "POST", json: { baseVersion: input.baseVersion } }),
+    onSettled: () =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: queryKeys.scene(record.id) }),
+        client.invalidateQueries({ queryKey: queryKeys.sceneVersions(record.id), exact: true }),
+        client.invalidateQueries({ queryKey: queryKeys.study(record.studyId) }),
+        client.invalidateQueries({ queryKey: queryKeys.blocks(record.studyId) }),
+      ]),
+  });
 }
 
 export function useBlocks(studyId: string) {

@@ -1,21 +1,19 @@
 // The scene JSON of one saved version (to show a difference or restore it).
-import { z } from "zod";
 import { getSceneVersionData } from "@/db/queries/scenes";
 import { AppError } from "@/lib/http/app-error";
 import { requireCaller, requireSceneAccess } from "@/lib/server/access";
 import { apiRoute, parseWith } from "@/lib/server/route";
 import { idSchema } from "@/lib/validation/ids";
+import { versionNumberSchema } from "@/lib/validation/scene-version";
 
 interface Context {
   params: Promise<{ sceneId: string; version: string }>;
 }
 
-const versionSchema = z.coerce.number().int("A version is a whole number.").min(1, "Versions start at 1.");
-
 export const GET = apiRoute<Context>(async (request, { params }) => {
   const raw = await params;
   const sceneId = parseWith(idSchema, raw.sceneId, "scene");
-  const version = parseWith(versionSchema, raw.version, "version");
+  const version = parseWith(versionNumberSchema, raw.version, "version");
   const caller = await requireCaller(request.headers);
   await requireSceneAccess({ caller, sceneId, action: "study:read" });
   const data = await getSceneVersionData({ sceneId, version });
