@@ -106,7 +106,10 @@ export function SceneEditPanel({
         </div>
       ) : null}
       {failure ? <ErrorState title="The scene was not saved" message={failure} /> : null}
-      <SceneEditor scene={draft ?? (record.data as Scene)} onChange={setDraft} readOnly={!canEdit} className="min-h-[640px]" />
+      {/* A fixed height, most of the window: the canvas keeps its size and the inspector scrolls inside it. */}
+      <div className="h-[max(560px,calc(100dvh_-_16rem))]">
+        <SceneEditor scene={draft ?? (record.data as Scene)} onChange={setDraft} readOnly={!canEdit} />
+      </div>
     </div>
   );
 }

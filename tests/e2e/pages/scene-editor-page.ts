@@ -54,7 +54,10 @@ export class SceneEditorPage {
   /** Selects the first `text` in the code view with the find widget, leaving the widget open. */
   async selectInCode(text: string): Promise<void> {
     await this.page.mouse.move(5, 5);
-    await this.page.locator(".monaco-editor").first().click({ position: { x: 320, y: 200 } });
+    // Into the text (the editor is narrower in the split view), below the sticky headers.
+    const editor = this.page.locator(".monaco-editor").first();
+    const box = (await editor.boundingBox())!;
+    await editor.click({ position: { x: box.width * 0.6, y: Math.min(200, box.height / 2) } });
     await this.page.keyboard.press("Control+F");
     await this.page.locator(".find-widget textarea, .find-widget input").first().fill(text);
     await this.page.keyboard.press("Enter");
