@@ -1,15 +1,20 @@
 "use client";
-// The study as a notebook: notes, scenes (and later runs and charts) in the order the engineer
-// works the question through. Editors add, move, collapse and delete blocks; everyone reads.
+// The study as a notebook: notes, scenes, saved runs and sweep results in the order the engineer
+// works the question through. Editors add, move, collapse and
+// delete blocks; everyone reads.
+import Link from "next/link";
 import { useState } from "react";
+import { isSweepBlock, SweepResultBlock } from "@/components/sweeps/sweep-result-block";
 import { SceneCard } from "@/components/studies/scene-card";
 import { Button } from "@/components/ui/button";
 import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { roleAllows, type TeamRole } from "@/lib/access/roles";
 import { useBlocks, useNotebookMutations } from "@/lib/client/queries";
+import { useStudyRuns } from "@/lib/client/run-queries";
 import type { BlockItem, SceneListItem } from "@/lib/http/api-types";
 import { AddSceneForm } from "./add-scene-form";
 import { NotesBlock } from "./notes-block";
+import { RunBlock, runBlockTitle, runIdOfBlock } from "./run-block";
 
 const kindLabels: Record<BlockItem["kind"], string> = { notes: "Notes", scene: "Scene", run: "Run", chart: "Chart" };
 
@@ -28,8 +33,14 @@ function IconButton({ label, onClick, disabled, children }: { label: string; onC
   );
 }
 
+const deleteQuestions: Partial<Record<BlockItem["kind"], string>> = {
+  notes: "Delete these notes? This cannot be undone.",
+  run: "Remove this run's block from the notebook? The saved run itself stays in the run table.",
+};
+
 export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role: TeamRole; scenes: SceneListItem[] }) {
   const query = useBlocks(studyId);
+  const runs = useStudyRuns(studyId);
   const mutations = useNotebookMutations(studyId);
   const [addingScene, setAddingScene] = useState(false);
   const [localCollapsed, setLocalCollapsed] = useState<Record<string, boolean>>({});
@@ -40,6 +51,7 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
   if (query.isError) return <ErrorState title="The notebook could not be loaded" message={query.error.message} onRetry={() => query.refetch()} />;
   const blocks = query.data.blocks;
   const sceneById = new Map(scenes.map((scene) => [scene.id, scene]));
+  const runById = new Map((runs.data?.runs ?? []).map((run) => [run.id, run]));
 
   const move = (index: number, by: -1 | 1) => {
     const ids = blocks.map((b) => b.id);
@@ -66,7 +78,18 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
         {blocks.map((block, index) => {
           const collapsed = collapsedOf(block);
           const scene = block.kind === "scene" ? sceneById.get((block.content as { sceneId: string }).sceneId) : undefined;
-          const title = block.kind === "scene" ? scene?.name ?? "Scene" : block.kind === "notes" ? ((block.content as { markdown: string }).markdown.split("\n")[0]?.replace(/^#+\s*/, "") || "Notes") : kindLabels[block.kind];
+          const title =
+            block.kind === "scene"
+              ? (scene?.name ?? "Scene")
+              : block.kind === "notes"
+                ? (block.content as { markdown: string }).markdown.split("\n")[0]?.replace(/^#+\s*/, "") || "Notes"
+                : block.kind === "run"
+                  ? runBlockTitle(runById.get(runIdOfBlock(block) ?? ""))
+                  : isSweepBlock(block)
+                    ? "Sweep result"
+                    : kindLabels[block.kind];
+          const kindLabel = isSweepBlock(block) ? "Sweep" : kindLabels[block.kind];
+          const deleteQuestion = deleteQuestions[block.kind];
           return (
             <li key={block.id} data-block-kind={block.kind} className="group rounded-lg border border-rule bg-panel shadow-[0_1px_0_rgba(22,33,43,0.04)]">
               <div className="flex items-center gap-2 border-b border-rule px-3 py-1.5">
@@ -75,7 +98,7 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
                     <path d="M4 6l4 4 4-4" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" strokeLinejoin="round" />
                   </svg>
                 </IconButton>
-                <span className="rounded bg-paper px-1.5 py-0.5 text-[11px] font-medium uppercase tracking-wide text-muted ring-1 ring-rule">{kindLabels[block.kind]}</span>
+                <span className="rounded bg-paper px-1.5 py-0.5 text-[11px] font-medium uppercase tracking-wide text-muted ring-1 ring-rule">{kindLabel}</span>
                 <span className="truncate text-sm text-ink-soft">{collapsed ? title : ""}</span>
                 {canEdit ? (
                   <div className="ml-auto flex items-center gap-0.5 opacity-60 transition group-hover:opacity-100">
@@ -88,8 +111,8 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
                     <IconButton label="Add notes below" onClick={() => mutations.addNotes.mutate({ markdown: "", afterBlockId: block.id })}>
                       <svg viewBox="0 0 16 16" className="size-4" aria-hidden><path d="M8 3.5v9M3.5 8h9" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" /></svg>
                     </IconButton>
-                    {block.kind === "notes" ? (
-                      <IconButton label="Delete block" onClick={() => window.confirm("Delete these notes? This cannot be undone.") && mutations.deleteBlock.mutate(block.id)}>
+                    {deleteQuestion ? (
+                      <IconButton label="Delete block" onClick={() => window.confirm(deleteQuestion) && mutations.deleteBlock.mutate(block.id)}>
                         <svg viewBox="0 0 16 16" className="size-4" aria-hidden><path d="M3.5 4.5h9M6.5 4.5V3h3v1.5M5 4.5l.5 8h5l.5-8" fill="none" stroke="currentColor" strokeWidth="1.4" strokeLinecap="round" strokeLinejoin="round" /></svg>
                       </IconButton>
                     ) : null}
@@ -110,6 +133,10 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
                         await query.refetch();
                       }}
                     />
+                  ) : block.kind === "run" ? (
+                    <RunBlock block={block} studyId={studyId} />
+                  ) : isSweepBlock(block) ? (
+                    <SweepResultBlock block={block} studyId={studyId} />
                   ) : block.kind === "scene" && scene ? (
                     <ul className="max-w-xl">
                       <SceneCard item={scene} studyId={studyId} />
@@ -135,6 +162,11 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
               <Button variant="secondary" size="sm" onClick={() => setAddingScene(true)}>
                 Add a scene
               </Button>
+            ) : null}
+            {canEditScenes && scenes.length > 0 ? (
+              <Link href={`/studies/${studyId}/sweeps`} className="inline-flex h-8 items-center rounded-md border border-rule-strong bg-panel px-3 text-sm font-medium text-ink hover:border-ink-soft">
+                Sweep a parameter
+              </Link>
             ) : null}
           </div>
         )

@@ -1,8 +1,15 @@
 "use client";
 // Start, pause, resume and cancel a browser run, with its progress in the units an engineer
-// watches: steps, simulated time, cell updates per second, time left.
+// watches: steps, simulated time, cell updates per second, time left. A finished run can be saved.
+import { useQueryClient } from "@tanstack/react-query";
+import { useParams } from "next/navigation";
+import { useState } from "react";
+import { RunSaveControl, type RunSaveSource } from "@/components/runs/run-save-control";
 import { Button } from "@/components/ui/button";
 import { ErrorState } from "@/components/ui/states";
+import { queryKeys } from "@/lib/client/queries";
+import { parseScene } from "@/lib/fdtd/scene";
+import type { SceneResponse } from "@/lib/http/api-types";
 import type { BrowserRunState } from "./use-browser-run";
 
 const compact = new Intl.NumberFormat("en-GB", { notation: "compact", maximumSignificantDigits: 3 });
@@ -23,6 +30,23 @@ const phaseLabels: Record<BrowserRunState["phase"], string> = {
   failed: "Stopped",
 };
 
+/**
+ * The scene page's scene as it is cached when a run starts: the workspace runs that record's saved
+ * version, so the run is filed under it. Null outside a scene page or before the scene has loaded.
+ */
+function useCachedSceneSource(): () => RunSaveSource | null {
+  const client = useQueryClient();
+  const params = useParams<{ studyId?: string; sceneId?: string }>();
+  return () => {
+    const { studyId, sceneId } = params;
+    if (typeof studyId !== "string" || typeof sceneId !== "string") return null;
+    const record = client.getQueryData<SceneResponse>(queryKeys.scene(sceneId))?.scene;
+    const parsed = record ? parseScene(record.data) : null;
+    if (!record || !parsed?.ok) return null;
+    return { studyId, sceneId, sceneVersion: record.version, scene: parsed.scene, unsavedEdits: false };
+  };
+}
+
 export function RunPanel({
   state,
   canRun,
@@ -30,6 +54,7 @@ export function RunPanel({
   onPause,
   onResume,
   onCancel,
+  source,
 }: {
   state: BrowserRunState;
   canRun: boolean;
@@ -37,8 +62,17 @@ export function RunPanel({
   onPause: () => void;
   onResume: () => void;
   onCancel: () => void;
+  /** What the next run is made from; without it, the scene page's cached scene at the moment the run starts. */
+  source?: RunSaveSource | null;
 }) {
   const { phase, progress } = state;
+  const cachedSource = useCachedSceneSource();
+  // Captured at the start: saving the scene while it runs must not re-file the run under the new version.
+  const [runSource, setRunSource] = useState<RunSaveSource | null>(null);
+  const start = () => {
+    setRunSource(source !== undefined ? source : cachedSource());
+    onStart();
+  };
   const active = phase === "starting" || phase === "running" || phase === "paused";
   const percent = progress ? Math.round(progress.fraction * 1000) / 10 : 0;
   return (
@@ -50,7 +84,7 @@ export function RunPanel({
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
         {!active ? (
-          <Button onClick={onStart} disabled={!canRun} title={canRun ? undefined : "Your role cannot run simulations"}>
+          <Button onClick={start} disabled={!canRun} title={canRun ? undefined : "Your role cannot run simulations"}>
             {phase === "idle" ? "Run in this browser" : "Run again"}
           </Button>
         ) : (
@@ -96,6 +130,9 @@ export function RunPanel({
           </dl>
         ) : null}
       </div>
+      {state.result && (phase === "finished" || phase === "cancelled") ? (
+        <RunSaveControl result={state.result} threads={state.engine?.threads} source={runSource} canSave={canRun} />
+      ) : null}
       {state.error ? (
         <ErrorState title={state.error.unstable ? "The simulation became unstable" : "The simulation stopped"} message={state.error.message} />
       ) : null}

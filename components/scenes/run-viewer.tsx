@@ -1,6 +1,7 @@
 "use client";
-// The pressure field of a browser run: live while it steps, then replayable over its snapshots
-// with a time scrubber, and switchable to the level maps once the run has finished.
+// The pressure field of a run: live while it steps, then replayable over its snapshots with a time
+// scrubber, and switchable to the level maps once the run has finished. FieldReplay shows any
+// result-like object (a live run's result or a saved run read back); RunViewer feeds it a live run.
 import { useEffect, useMemo, useRef, useState } from "react";
 import { sameGrid, useSessionRuns } from "@/components/run/session-runs";
 import type { BrowserRunState } from "@/components/run/use-browser-run";
@@ -9,33 +10,68 @@ import { downloadBlob, FieldViewToolbar } from "@/components/field-view/field-vi
 import { Button } from "@/components/ui/button";
 import type { GridPlan } from "@/lib/fdtd/grid";
 import type { Scene } from "@/lib/fdtd/scene";
+import type { FieldSnapshot, LevelMaps } from "@/lib/fdtd/simulation";
+
+/** What a replay needs of a run: a SimulationResult and a DecodedRun (lib/run-record/payload) both fit. */
+export interface FieldReplaySource {
+  snapshots: readonly FieldSnapshot[];
+  finalPressure: FieldSnapshot;
+  levelMaps?: LevelMaps;
+  intensity?: { x: FieldSnapshot; y: FieldSnapshot };
+}
+
+/** A run whose level maps this one can be subtracted from (same grid), for the insertion-loss view. */
+export interface ReplayReference {
+  id: string;
+  name: string;
+  levelMaps: LevelMaps;
+}
 
 export function RunViewer({ scene, sceneId, state }: { scene: Scene; sceneId: string; grid: GridPlan; state: BrowserRunState }) {
+  const result = state.result;
+  const sessionRuns = useSessionRuns();
+  // The references this run can be compared with: finished runs of other scenes on the same grid,
+  // scenes marked as reference first.
+  const references = useMemo(
+    () =>
+      result
+        ? [...sessionRuns.values()]
+            .filter((run) => run.sceneId !== sceneId && sameGrid(run.result, result) && run.result.levelMaps)
+            .sort((a, b) => Number(b.isReference) - Number(a.isReference) || b.finishedAt - a.finishedAt)
+            .map((run) => ({ id: run.sceneId, name: run.sceneName, levelMaps: run.result.levelMaps! }))
+        : [],
+    [sessionRuns, sceneId, result],
+  );
+  return <FieldReplay scene={scene} result={result} liveFrame={state.frame} references={references} noReferenceReason="Run the reference scene (same grid) in this tab first" />;
+}
+
+export function FieldReplay({
+  scene,
+  result,
+  liveFrame = null,
+  references = [],
+  noReferenceReason,
+}: {
+  scene: Scene;
+  /** The finished run, or null while it steps (then liveFrame is shown). */
+  result: FieldReplaySource | null;
+  liveFrame?: FieldSnapshot | null;
+  references?: readonly ReplayReference[];
+  /** Why the level difference is unavailable when there is no reference. */
+  noReferenceReason: string;
+}) {
   const view = useRef<FieldViewHandle>(null);
   const [mode, setMode] = useState<FieldViewMode>("pressure");
   const [range, setRange] = useState<FieldRange>({ kind: "auto" });
   const [frameIndex, setFrameIndex] = useState<number | null>(null);
   const [playing, setPlaying] = useState(false);
   const [showFlow, setShowFlow] = useState(false);
-  const result = state.result;
-  const sessionRuns = useSessionRuns();
-  // The reference this run is compared with: a finished run of another scene on the same grid, the
-  // scene marked as reference first.
-  const references = useMemo(
-    () =>
-      result
-        ? [...sessionRuns.values()]
-            .filter((run) => run.sceneId !== sceneId && sameGrid(run.result, result))
-            .sort((a, b) => Number(b.isReference) - Number(a.isReference) || b.finishedAt - a.finishedAt)
-        : [],
-    [sessionRuns, sceneId, result],
-  );
   const [referenceId, setReferenceId] = useState<string | null>(null);
-  const reference = references.find((run) => run.sceneId === referenceId) ?? references[0];
+  const reference = references.find((run) => run.id === referenceId) ?? references[0];
   const frames = useMemo(() => (result ? [...result.snapshots, ...(result.snapshots.at(-1)?.step === result.finalPressure.step ? [] : [result.finalPressure])] : []), [result]);
   const lastIndex = frames.length - 1;
   const shownIndex = frameIndex ?? lastIndex;
-  const field = result ? (frames[shownIndex] ?? null) : state.frame;
+  const field = result ? (frames[shownIndex] ?? null) : liveFrame;
 
   // Playback: one snapshot per animation frame, from the start when at the end.
   useEffect(() => {
@@ -54,7 +90,7 @@ export function RunViewer({ scene, sceneId, state }: { scene: Scene; sceneId: st
   }, [playing, frames.length, lastIndex]);
 
   const levelsMissing = result?.levelMaps ? undefined : "Level maps are available when the run has finished";
-  const differenceMissing = levelsMissing ?? (reference ? undefined : "Run the reference scene (same grid) in this tab first");
+  const differenceMissing = levelsMissing ?? (reference ? undefined : noReferenceReason);
   const flowAvailable = Boolean(result?.intensity) && (mode === "peak-level" || mode === "rms-level");
   return (
     <div className="flex flex-col gap-3">
@@ -79,7 +115,7 @@ export function RunViewer({ scene, sceneId, state }: { scene: Scene; sceneId: st
           field={field}
           mode={mode}
           levelMaps={result?.levelMaps}
-          comparison={mode === "level-difference" ? reference?.result.levelMaps : undefined}
+          comparison={mode === "level-difference" ? reference?.levelMaps : undefined}
           intensity={showFlow && flowAvailable && result?.intensity ? { x: result.intensity.x, y: result.intensity.y } : undefined}
           range={range}
           className="aspect-[16/7] w-full"
@@ -97,13 +133,13 @@ export function RunViewer({ scene, sceneId, state }: { scene: Scene; sceneId: st
             <label className="flex items-center gap-2">
               Reference
               <select
-                value={reference?.sceneId ?? ""}
+                value={reference?.id ?? ""}
                 onChange={(event) => setReferenceId(event.target.value)}
                 className="h-8 rounded-md border border-rule-strong bg-panel px-2 text-sm text-ink"
               >
                 {references.map((run) => (
-                  <option key={run.sceneId} value={run.sceneId}>
-                    {run.sceneName}
+                  <option key={run.id} value={run.id}>
+                    {run.name}
                   </option>
                 ))}
               </select>

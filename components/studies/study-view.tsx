@@ -7,6 +7,7 @@ import { useStudy } from "@/lib/client/queries";
 import type { ActivityItem } from "@/lib/http/api-types";
 import { RoleBadge } from "./role-badge";
 import { StudyNotebook } from "@/components/notebook/study-notebook";
+import { StudyRuns } from "@/components/runs/study-runs";
 
 const activityVerbs: Record<string, string> = {
   "study.created": "started the study",
@@ -14,6 +15,8 @@ const activityVerbs: Record<string, string> = {
   "scene.saved": "saved a scene",
   "block.added": "added a block",
   "block.deleted": "removed a block",
+  "run.saved": "saved a run",
+  "run.deleted": "deleted a run",
 };
 
 function ActivityList({ items }: { items: ActivityItem[] }) {
@@ -88,6 +91,7 @@ export function StudyView({ studyId }: { studyId: string }) {
           </div>
         </aside>
       </div>
+      <StudyRuns studyId={study.id} />
     </div>
   );
 }

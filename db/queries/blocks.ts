@@ -70,6 +70,30 @@ export async function getBlockById({ id }: { id: string }): Promise<(BlockItem &
   });
 }
 
+/** The study's block that shows a given saved run, if there is one (a run is shown once). */
+export async function findRunBlock({ studyId, runId }: { studyId: string; runId: string }): Promise<BlockItem | null> {
+  return withDatabaseErrors("read the notebook", async () => {
+    const blocks = await selectBlocks(studyId);
+    return blocks.find((b) => b.kind === "run" && (b.content as { runId?: string }).runId === runId) ?? null;
+  });
+}
+
+/** A sweep chart names the scene it varied: it must be one of this study's, or the block would point elsewhere. */
+async function checkSweepScene(studyId: string, kind: BlockKind, content: unknown): Promise<void> {
+  if (kind !== "chart") return;
+  const sweep = (content as { quantity?: unknown; sweep?: { definition?: { sceneId?: unknown } } }).sweep;
+  const sceneId = sweep?.definition?.sceneId;
+  if (typeof sceneId !== "string") return;
+  const rows = await withDatabaseErrors("check the sweep's scene", async () => {
+    const db = await getDb();
+    return db.select({ studyId: scene.studyId }).from(scene).where(eq(scene.id, sceneId)).limit(1);
+  });
+  if (rows[0]?.studyId !== studyId) {
+    const path = "content.sweep.definition.sceneId";
+    throw new AppError("bad_request:block", `${path}: no such scene in this study.`, [{ path, message: "No such scene in this study." }]);
+  }
+}
+
 export async function createBlock({
   studyId,
   authorId,
@@ -83,6 +107,7 @@ export async function createBlock({
   content: unknown;
   afterBlockId: string | null;
 }): Promise<BlockItem> {
+  await checkSweepScene(studyId, kind, content);
   const id = await withDatabaseErrors("add the block", async () => {
     const blocks = await selectBlocks(studyId);
     const afterIndex = afterBlockId === null ? blocks.length - 1 : blocks.findIndex((b) => b.id === afterBlockId);

@@ -6,10 +6,110 @@ export const notesContentSchema = z.object({
 });
 export const sceneContentSchema = z.object({ sceneId: z.string().uuid("Not a valid scene id.") });
 export const runContentSchema = z.object({ runId: z.string().uuid("Not a valid run id.") });
-export const chartContentSchema = z.object({
-  runIds: z.array(z.string().uuid()).max(12, "A chart can compare at most 12 runs."),
-  quantity: z.enum(["trace", "spectrum", "band-levels", "insertion-loss"]),
-});
+// A parameter sweep's result, kept in a chart block with the definition that produced it, so that
+// anyone can read how it was made and run it again. Its cases were run in a browser and not saved as
+// runs, so the block carries the numbers themselves (insertion loss rounded to 0.01 dB).
+
+/** Most values and receivers a saved sweep may hold (a sweep runs at most 25 cases: lib/scene-variants/sweep.ts). */
+export const MAX_SAVED_SWEEP_VALUES = 25;
+export const MAX_SAVED_SWEEP_RECEIVERS = 12;
+/** One-third-octave bands from 20 Hz to 20 kHz are 31. */
+export const MAX_SAVED_SWEEP_BANDS = 31;
+
+const finiteNumber = () => z.number().finite();
+const elementId = z.string().min(1).max(64);
+
+export const sweepParameterSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("wall-height"), wallId: elementId }).strict(),
+  z.object({ kind: z.literal("wall-position"), wallId: elementId }).strict(),
+  z.object({ kind: z.literal("wall-absorption"), wallId: elementId }).strict(),
+  z.object({ kind: z.literal("receiver-height"), receiverId: elementId }).strict(),
+  z.object({ kind: z.literal("source-height"), sourceId: elementId }).strict(),
+]);
+
+export const sweepReferenceSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("without"), removedIds: z.array(elementId).min(1, "Name at least one element the reference leaves out.").max(500) }).strict(),
+  z.object({ kind: z.literal("free-field") }).strict(),
+]);
+
+export const sweepDefinitionSchema = z
+  .object({
+    sceneId: z.string().uuid("Not a valid scene id."),
+    sceneVersion: z.number().int().min(1),
+    sceneName: z.string().max(200),
+    parameter: sweepParameterSchema,
+    /** How the parameter was described when the sweep ran ("height of Timber barrier") and its unit. */
+    parameterLabel: z.string().max(300),
+    unit: z.string().max(20),
+    range: z.object({ from: finiteNumber(), to: finiteNumber(), step: finiteNumber().positive("The step must be greater than zero.") }).strict(),
+    reference: sweepReferenceSchema,
+    bandsPerOctave: z.union([z.literal(1), z.literal(3)]),
+    weighting: z.enum(["Z", "A"]),
+    receiverIds: z.array(z.string().min(1).max(200)).min(1).max(MAX_SAVED_SWEEP_RECEIVERS),
+  })
+  .strict();
+
+const bandSchema = z.object({ index: z.number().int(), nominal: finiteNumber().positive(), lower: finiteNumber().positive(), upper: finiteNumber().positive() }).strict();
+/** null where a value could not be computed (a case that failed or was not run, a silent band). */
+const decibels = finiteNumber().nullable();
+
+export const sweepResultsSchema = z
+  .object({
+    values: z.array(finiteNumber()).min(1).max(MAX_SAVED_SWEEP_VALUES),
+    /** Per value: finished, failed (with the reason) or not run (the sweep was cancelled first). */
+    outcomes: z
+      .array(z.object({ status: z.enum(["done", "failed", "not-run"]), message: z.string().max(2000).optional() }).strict())
+      .max(MAX_SAVED_SWEEP_VALUES),
+    receivers: z.array(z.object({ id: z.string().min(1).max(200), label: z.string().max(300) }).strict()).min(1).max(MAX_SAVED_SWEEP_RECEIVERS),
+    bands: z.array(bandSchema).max(MAX_SAVED_SWEEP_BANDS),
+    /** insertionLoss[value][receiver][band], dB. */
+    insertionLoss: z.array(z.array(z.array(decibels).max(MAX_SAVED_SWEEP_BANDS)).max(MAX_SAVED_SWEEP_RECEIVERS)).max(MAX_SAVED_SWEEP_VALUES),
+    /** overall[value][receiver]: difference of the overall (band-summed) levels, dB. */
+    overall: z.array(z.array(decibels).max(MAX_SAVED_SWEEP_RECEIVERS)).max(MAX_SAVED_SWEEP_VALUES),
+    /** Bands left out of the result and why (above the resolved frequency, narrower than the resolution). */
+    excludedBands: z.array(z.string().max(300)).max(100).default([]),
+    completedAt: z.string().datetime(),
+  })
+  .strict()
+  .superRefine((results, ctx) => {
+    const values = results.values.length;
+    const receivers = results.receivers.length;
+    const bands = results.bands.length;
+    if (results.outcomes.length !== values) ctx.addIssue({ code: "custom", path: ["outcomes"], message: `Give one outcome per value (${values}).` });
+    if (results.overall.length !== values || results.overall.some((row) => row.length !== receivers)) {
+      ctx.addIssue({ code: "custom", path: ["overall"], message: `Give ${values} rows of ${receivers} overall values.` });
+    }
+    const shaped = results.insertionLoss.length === values && results.insertionLoss.every((row) => row.length === receivers && row.every((cells) => cells.length === bands));
+    if (!shaped) ctx.addIssue({ code: "custom", path: ["insertionLoss"], message: `Give ${values} x ${receivers} x ${bands} insertion-loss values (value, receiver, band).` });
+  });
+
+export const sweepContentSchema = z
+  .object({ definition: sweepDefinitionSchema, results: sweepResultsSchema })
+  .strict()
+  .superRefine((sweep, ctx) => {
+    const ids = sweep.results.receivers.map((receiver) => receiver.id);
+    if (ids.length !== sweep.definition.receiverIds.length || ids.some((id, k) => id !== sweep.definition.receiverIds[k])) {
+      ctx.addIssue({ code: "custom", path: ["results", "receivers"], message: "The result's receivers must be those the definition names, in its order." });
+    }
+  });
+export type SweepParameterInput = z.infer<typeof sweepParameterSchema>;
+export type SweepReference = z.infer<typeof sweepReferenceSchema>;
+export type SweepDefinition = z.infer<typeof sweepDefinitionSchema>;
+export type SweepResults = z.output<typeof sweepResultsSchema>;
+export type SweepContent = z.output<typeof sweepContentSchema>;
+
+/** A chart compares saved runs (runIds) by a quantity, or, for "sweep", holds a sweep's definition and result. */
+export const chartContentSchema = z
+  .object({
+    runIds: z.array(z.string().uuid()).max(12, "A chart can compare at most 12 runs."),
+    quantity: z.enum(["trace", "spectrum", "band-levels", "insertion-loss", "sweep"]),
+    sweep: sweepContentSchema.optional(),
+  })
+  .superRefine((chart, ctx) => {
+    if (chart.quantity === "sweep" && !chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "A sweep chart needs its definition and results." });
+    if (chart.quantity !== "sweep" && chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "Only a sweep chart holds a sweep." });
+  });
+export type ChartContent = z.output<typeof chartContentSchema>;
 
 export const blockCreateSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("notes"), content: notesContentSchema, afterBlockId: z.string().uuid().nullable().default(null) }),

@@ -1,0 +1,12 @@
+import type { Metadata } from "next";
+import { SavedRunPage } from "@/components/saved-run/saved-run-page";
+import { requirePageCaller } from "@/lib/server/page-session";
+
+export const metadata: Metadata = { title: "Saved run" };
+
+export default async function RunPage({ params }: { params: Promise<{ studyId: string; runId: string }> }) {
+  const { studyId, runId } = await params;
+  // The caller's id decides whether the delete control shows (the server decides again on DELETE).
+  const caller = await requirePageCaller(`/studies/${studyId}/runs/${runId}`);
+  return <SavedRunPage studyId={studyId} runId={runId} callerId={caller.userId} />;
+}
