@@ -14,6 +14,7 @@ import type { DecodedRun } from "@/lib/run-record/payload";
 import { AnalysisPanel, ExportButton, Note, Segmented } from "./analysis-controls";
 import { receiverColour } from "./analysis-traces";
 import { BandBarChart, formatHz } from "./band-bar-chart";
+import { BandTableHead, bandFileTag, ReceiverBandRow } from "./band-table";
 import { downloadCsv, exportFileName, svgChartPng } from "./export-files";
 
 export interface BandLevelsPanelProps {
@@ -160,32 +161,11 @@ export function BandLevelsPanel({ run, runId, receiverIds, highestResolvedFreque
         <>
           <div className="overflow-x-auto">
             <table className="min-w-full border-collapse font-mono text-[12px]" data-testid="band-level-table">
-              <thead>
-                <tr className="border-b border-rule-strong text-ink-soft">
-                  <th className="px-2 py-1 text-left font-sans font-medium">Receiver</th>
-                  <th className={`${tableCell} font-medium`}>Overall</th>
-                  {table.bands.map((band) => (
-                    <th key={band.index} className={`${tableCell} font-medium`} title={`exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz, exact centre ${band.centre.toFixed(1)} Hz`}>
-                      {formatHz(band.nominal)}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
+              <BandTableHead bands={table.bands} showCentre />
               <tbody>
                 {table.receivers.map((receiver, r) => (
                   <Fragment key={receiver.receiverId}>
-                    <tr className="border-b border-rule">
-                      <th scope="row" className="px-2 py-1 text-left font-sans font-normal text-ink">
-                        <span className="mr-1.5 inline-block size-2.5 rounded-sm align-middle" style={{ background: receiverColour(indexOf(receiver.receiverId)) }} />
-                        {receiver.label}
-                      </th>
-                      <td className={`${tableCell} font-semibold`}>{sumLevels(shownLevels(r)).toFixed(1)}</td>
-                      {Array.from(shownLevels(r), (level, b) => (
-                        <td key={b} className={tableCell}>
-                          {Number.isFinite(level) ? level.toFixed(1) : "–"}
-                        </td>
-                      ))}
-                    </tr>
+                    <ReceiverBandRow label={receiver.label} colour={receiverColour(indexOf(receiver.receiverId))} overall={sumLevels(shownLevels(r))} values={shownLevels(r)} />
                     {airRows?.[r] ? (
                       <tr className="border-b border-rule text-muted">
                         <th scope="row" className="px-2 py-1 text-left font-sans font-normal text-[11px]">
@@ -222,7 +202,7 @@ export function BandLevelsPanel({ run, runId, receiverIds, highestResolvedFreque
                 onExport={() =>
                   downloadCsv(
                     bandLevelsCsv(table, airRows && effect && typeof effect !== "string" ? { levels: airRows.map((row) => row.levels), note: effect.note } : {}),
-                    exportFileName(runId, `band-levels-${bandsPerOctave === 1 ? "octave" : "third-octave"}${weighting === "A" ? "-A" : ""}`, "csv"),
+                    exportFileName(runId, `band-levels-${bandFileTag(bandsPerOctave, weighting)}`, "csv"),
                   )
                 }
               />

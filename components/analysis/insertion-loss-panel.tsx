@@ -19,7 +19,8 @@ import type { DecodedRun } from "@/lib/run-record/payload";
 
 import { AnalysisPanel, ExportButton, Note, Segmented } from "./analysis-controls";
 import { receiverColour } from "./analysis-traces";
-import { BandBarChart, formatHz } from "./band-bar-chart";
+import { BandBarChart } from "./band-bar-chart";
+import { BandTableHead, bandFileTag, ReceiverBandRow } from "./band-table";
 import { BarrierComparison } from "./barrier-comparison";
 import { downloadCsv, exportFileName, svgChartPng } from "./export-files";
 import { ReferenceMaker } from "./reference-maker";
@@ -174,31 +175,10 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
         <>
           <div className="overflow-x-auto">
             <table className="min-w-full border-collapse font-mono text-[12px]" data-testid="insertion-loss-table">
-              <thead>
-                <tr className="border-b border-rule-strong text-ink-soft">
-                  <th className="px-2 py-1 text-left font-sans font-medium">Receiver</th>
-                  <th className="px-2 py-1 text-right font-medium">Overall</th>
-                  {table.bands.map((band) => (
-                    <th key={band.index} className="px-2 py-1 text-right font-medium" title={`exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz`}>
-                      {formatHz(band.nominal)}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
+              <BandTableHead bands={table.bands} />
               <tbody>
                 {table.receivers.map((receiver) => (
-                  <tr key={receiver.receiverId} className="border-b border-rule">
-                    <th scope="row" className="px-2 py-1 text-left font-sans font-normal text-ink">
-                      <span className="mr-1.5 inline-block size-2.5 rounded-sm align-middle" style={{ background: receiverColour(indexOf(receiver.receiverId)) }} />
-                      {receiver.label}
-                    </th>
-                    <td className="px-2 py-1 text-right font-semibold tabular-nums">{receiver.overall.toFixed(1)}</td>
-                    {Array.from(receiver.insertionLoss, (value, b) => (
-                      <td key={b} className="px-2 py-1 text-right tabular-nums">
-                        {Number.isFinite(value) ? value.toFixed(1) : "–"}
-                      </td>
-                    ))}
-                  </tr>
+                  <ReceiverBandRow key={receiver.receiverId} label={receiver.label} colour={receiverColour(indexOf(receiver.receiverId))} overall={receiver.overall} values={receiver.insertionLoss} />
                 ))}
               </tbody>
             </table>
@@ -213,7 +193,7 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
             ariaLabel="Insertion loss per band"
           />
           <div className="flex flex-wrap justify-end gap-2">
-            <ExportButton label="CSV" onExport={() => downloadCsv(insertionLossCsv(table), exportFileName(runId, `insertion-loss-${bandsPerOctave === 1 ? "octave" : "third-octave"}${weighting === "A" ? "-A" : ""}`, "csv"))} />
+            <ExportButton label="CSV" onExport={() => downloadCsv(insertionLossCsv(table), exportFileName(runId, `insertion-loss-${bandFileTag(bandsPerOctave, weighting)}`, "csv"))} />
             <ExportButton label="PNG" onExport={async () => downloadBlob(await svgChartPng(svg.current!), exportFileName(runId, "insertion-loss", "png"))} />
           </div>
         </>

@@ -3,9 +3,9 @@
 // grid and its warnings, levels per receiver and octave band, insertion loss against a chosen reference
 // run, who ran it and whether it has been reviewed, and the cautions. The browser's own print command
 // makes the PDF; print styles put it on A4 and leave the app's header and controls out.
-import Link from "next/link";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { Button } from "@/components/ui/button";
 import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { ApiError } from "@/lib/client/api";
@@ -74,6 +74,75 @@ const numberHead = "border-b border-rule-strong px-2 py-1 text-right font-medium
 const cell = "border-b border-rule px-2 py-1 text-ink";
 const numberCell = "border-b border-rule px-2 py-1 text-right font-mono tabular text-ink";
 
+/** One header row; a column marked numeric is right-aligned like the figures under it. */
+function HeadRow({ columns }: { columns: { label: React.ReactNode; key: string | number; numeric?: boolean }[] }) {
+  return (
+    <thead>
+      <tr>
+        {columns.map((column) => (
+          <th key={column.key} scope="col" className={column.numeric ? numberHead : headCell}>
+            {column.label}
+          </th>
+        ))}
+      </tr>
+    </thead>
+  );
+}
+
+interface ReceiverBandRow {
+  receiverId: string;
+  label: string;
+  /** Figures shown before the bands (from the run summary), in the order of `leading`. */
+  leading?: (number | null | undefined)[];
+  bands: ArrayLike<number>;
+  overall: number;
+}
+
+/**
+ * Receivers down, octave bands across, with optional figures before the bands and a bold total after
+ * them; long receiver lines are cut at LISTED_RECEIVERS with a note. Band levels and insertion loss
+ * share it, so both tables read alike on paper.
+ */
+function ReceiverBandTable({ bands, rows, leading = [], overallLabel }: { bands: { index: number; nominal: number }[]; rows: ReceiverBandRow[]; leading?: string[]; overallLabel: string }) {
+  return (
+    <>
+      <div className="overflow-x-auto">
+        <table className={tableClasses}>
+          <HeadRow
+            columns={[
+              { key: "receiver", label: "Receiver" },
+              ...leading.map((label) => ({ key: label, label, numeric: true })),
+              ...bands.map((band) => ({ key: band.index, label: bandHeading(band.nominal), numeric: true })),
+              { key: "overall", label: overallLabel, numeric: true },
+            ]}
+          />
+          <tbody>
+            {rows.slice(0, LISTED_RECEIVERS).map((row) => (
+              <tr key={row.receiverId}>
+                <th scope="row" className={`${cell} text-left font-normal`}>
+                  {row.label || row.receiverId}
+                </th>
+                {(row.leading ?? []).map((value, k) => (
+                  <td key={`leading-${k}`} className={numberCell}>
+                    {db(value)}
+                  </td>
+                ))}
+                {Array.from(row.bands, (value, b) => (
+                  <td key={b} className={numberCell}>
+                    {db(value)}
+                  </td>
+                ))}
+                <td className={`${numberCell} font-semibold`}>{db(row.overall)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {rows.length > LISTED_RECEIVERS ? <p className="text-[13px] text-muted">The first {LISTED_RECEIVERS} of {rows.length} receivers are listed.</p> : null}
+    </>
+  );
+}
+
 function ReferencePicker({ run, studyId, referenceId }: { run: RunRecord; studyId: string; referenceId: string | null }) {
   const runs = useStudyRuns(studyId);
   const router = useRouter();
@@ -131,41 +200,7 @@ function InsertionLossPart({ run, decoded, referenceId, highestResolvedFrequency
         IL = level of the reference minus level of this run, per octave band (unweighted). Reference run: <span className="font-medium text-ink">{ref.sceneName ?? "deleted scene"}</span> version {ref.sceneVersion}, run {when(ref.createdAt)}
         {ref.createdByName ? ` by ${ref.createdByName}` : ""}.
       </p>
-      <div className="overflow-x-auto">
-        <table className={tableClasses}>
-          <thead>
-            <tr>
-              <th scope="col" className={headCell}>
-                Receiver
-              </th>
-              {bands.map((band) => (
-                <th key={band.index} scope="col" className={numberHead}>
-                  {bandHeading(band.nominal)}
-                </th>
-              ))}
-              <th scope="col" className={numberHead}>
-                Overall
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {receivers.slice(0, LISTED_RECEIVERS).map((receiver) => (
-              <tr key={receiver.receiverId}>
-                <th scope="row" className={`${cell} text-left font-normal`}>
-                  {receiver.label || receiver.receiverId}
-                </th>
-                {Array.from(receiver.insertionLoss, (value, b) => (
-                  <td key={b} className={numberCell}>
-                    {db(value)}
-                  </td>
-                ))}
-                <td className={`${numberCell} font-semibold`}>{db(receiver.overall)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-      {receivers.length > LISTED_RECEIVERS ? <p className="text-[13px] text-muted">The first {LISTED_RECEIVERS} of {receivers.length} receivers are listed.</p> : null}
+      <ReceiverBandTable bands={bands} rows={receivers.map((receiver) => ({ receiverId: receiver.receiverId, label: receiver.label, bands: receiver.insertionLoss, overall: receiver.overall }))} overallLabel="Overall" />
     </div>
   );
 }
@@ -204,22 +239,14 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
           <p className="text-sm text-muted">No solids, walls or treated surfaces; every outer side absorbs.</p>
         ) : (
           <table className={tableClasses}>
-            <thead>
-              <tr>
-                <th scope="col" className={headCell}>
-                  Element
-                </th>
-                <th scope="col" className={headCell}>
-                  Kind
-                </th>
-                <th scope="col" className={headCell}>
-                  Treatment
-                </th>
-                <th scope="col" className={numberHead}>
-                  α (normal incidence)
-                </th>
-              </tr>
-            </thead>
+            <HeadRow
+              columns={[
+                { key: "element", label: "Element" },
+                { key: "kind", label: "Kind" },
+                { key: "treatment", label: "Treatment" },
+                { key: "absorption", label: "α (normal incidence)", numeric: true },
+              ]}
+            />
             <tbody>
               {treatments.map((row, k) => (
                 <tr key={`${row.kind}-${row.element}-${k}`}>
@@ -267,52 +294,15 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
             <p className="text-sm text-ink-soft">
               Energy-equivalent levels over the {figure(bandLevels.value.averagingTime * 1000)} ms simulated, dB re 20 µPa, unweighted, in the octave bands the grid resolves (up to {figure(grid.maxResolvedFrequency)} Hz). Peak levels from the run summary.
             </p>
-            <div className="overflow-x-auto">
-              <table className={tableClasses}>
-                <thead>
-                  <tr>
-                    <th scope="col" className={headCell}>
-                      Receiver
-                    </th>
-                    <th scope="col" className={numberHead}>
-                      Peak
-                    </th>
-                    <th scope="col" className={numberHead}>
-                      Leq
-                    </th>
-                    {bandLevels.value.bands.map((band) => (
-                      <th key={band.index} scope="col" className={numberHead}>
-                        {bandHeading(band.nominal)}
-                      </th>
-                    ))}
-                    <th scope="col" className={numberHead}>
-                      Bands total
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {bandLevels.value.receivers.slice(0, LISTED_RECEIVERS).map((receiver) => {
-                    const summaryRow = receiverSummaries.get(receiver.receiverId);
-                    return (
-                      <tr key={receiver.receiverId}>
-                        <th scope="row" className={`${cell} text-left font-normal`}>
-                          {receiver.label || receiver.receiverId}
-                        </th>
-                        <td className={numberCell}>{db(summaryRow?.peakLevelDb)}</td>
-                        <td className={numberCell}>{db(summaryRow?.leqDb)}</td>
-                        {Array.from(receiver.levels, (level, b) => (
-                          <td key={b} className={numberCell}>
-                            {db(level)}
-                          </td>
-                        ))}
-                        <td className={`${numberCell} font-semibold`}>{db(receiver.overall)}</td>
-                      </tr>
-                    );
-                  })}
-                </tbody>
-              </table>
-            </div>
-            {bandLevels.value.receivers.length > LISTED_RECEIVERS ? <p className="text-[13px] text-muted">The first {LISTED_RECEIVERS} of {bandLevels.value.receivers.length} receivers are listed.</p> : null}
+            <ReceiverBandTable
+              bands={bandLevels.value.bands}
+              leading={["Peak", "Leq"]}
+              rows={bandLevels.value.receivers.map((receiver) => {
+                const summaryRow = receiverSummaries.get(receiver.receiverId);
+                return { receiverId: receiver.receiverId, label: receiver.label, leading: [summaryRow?.peakLevelDb, summaryRow?.leqDb], bands: receiver.levels, overall: receiver.overall };
+              })}
+              overallLabel="Bands total"
+            />
             {bandLevels.value.excluded.length > 0 ? (
               <p className="text-[12px] text-muted">
                 Left out:{" "}
@@ -378,13 +368,7 @@ export function RunReport({ studyId, runId }: { studyId: string; runId: string }
     <article data-report-page className="mx-auto flex w-full max-w-[210mm] flex-col gap-5 rounded-lg border border-rule bg-panel px-10 py-9 shadow-sm print:max-w-none print:gap-4 print:rounded-none print:border-0 print:p-0 print:shadow-none">
       <style>{PRINT_SHEET}</style>
       <div className="flex flex-wrap items-center justify-between gap-3 print:hidden">
-        <nav aria-label="Breadcrumb" className="text-sm text-muted">
-          <Link href={`/studies/${studyId}`} className="hover:text-tide-600">
-            {studyRecord?.title ?? "Study"}
-          </Link>
-          <span aria-hidden> / </span>
-          <span className="text-ink-soft">Run report</span>
-        </nav>
+        <Breadcrumb links={[{ href: `/studies/${studyId}`, label: studyRecord?.title ?? "Study" }]} current="Run report" />
         <Button onClick={() => window.print()} disabled={!payload.data}>
           Print or save as PDF
         </Button>

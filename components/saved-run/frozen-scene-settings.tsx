@@ -1,5 +1,6 @@
 // What a saved run was asked to compute: the scene exactly as it was run (frozen with the run) and
 // how its result was kept. Read from the stored payload, so later edits of the scene do not show here.
+import { FigureList } from "@/components/ui/figure-list";
 import type { Scene } from "@/lib/fdtd/scene";
 import type { RunPayloadHeader } from "@/lib/run-record/payload";
 
@@ -37,14 +38,7 @@ export function FrozenSceneSettings({ scene, header }: { scene: Scene; header: R
   ];
   return (
     <div className="flex flex-col gap-3">
-      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
-        {rows.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-muted">{label}</dt>
-            <dd className="text-ink-soft">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FigureList rows={rows} values="text" />
       <details className="text-sm">
         <summary className="cursor-pointer text-tide-700">The scene as run (JSON)</summary>
         <pre className="mt-2 max-h-80 overflow-auto rounded-md border border-rule bg-paper p-3 font-mono text-[12px] leading-relaxed text-ink-soft">{JSON.stringify(header.scene, null, 2)}</pre>

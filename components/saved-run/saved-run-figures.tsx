@@ -1,6 +1,7 @@
 // A saved run's summary as stored with it: the grid it ran on, how far it ran, the receivers'
 // levels and the solver's warnings. Read from the summary, never recomputed.
 import { formatGrid, formatLevel } from "@/components/runs/run-table-model";
+import { FigureList, SolverWarnings } from "@/components/ui/figure-list";
 import type { RunSummary } from "@/lib/run-record/summary";
 
 const figure = new Intl.NumberFormat("en-GB", { maximumSignificantDigits: 3 });
@@ -20,23 +21,9 @@ export function SavedRunFigures({ summary }: { summary: RunSummary }) {
   ];
   return (
     <div className="flex flex-col gap-4">
-      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
-        {rows.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-muted">{label}</dt>
-            <dd className="tabular font-mono text-[13px] text-ink">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FigureList rows={rows} />
       {summary.warnings.length > 0 ? (
-        <ul aria-label="Warnings" className="flex flex-col gap-1.5">
-          {summary.warnings.map((warning, index) => (
-            <li key={`${warning.code}-${index}`} className="rounded-md border border-signal-warn/30 bg-[#fdf6e7] px-3 py-2 text-[13px] text-ink-soft">
-              <span className="font-medium text-signal-warn">Check: </span>
-              {warning.message}
-            </li>
-          ))}
-        </ul>
+        <SolverWarnings warnings={summary.warnings} />
       ) : (
         <p className="text-sm text-muted">The solver raised no warnings for this run.</p>
       )}

@@ -11,11 +11,12 @@ import { formatWallTime } from "@/components/runs/run-table-model";
 import { formatBytes } from "@/components/scenes/grid-figures";
 import { FieldReplay } from "@/components/scenes/run-viewer";
 import { RoleBadge } from "@/components/studies/role-badge";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { Button } from "@/components/ui/button";
+import { LoadFailure } from "@/components/ui/load-failure";
 import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { mayDeleteRun } from "@/lib/access/run-deletion";
 import { roleAllows } from "@/lib/access/roles";
-import { ApiError } from "@/lib/client/api";
 import { formatWhen } from "@/lib/client/format";
 import { useRun, useSavedRunPayload } from "@/lib/client/run-queries";
 import { parseScene } from "@/lib/fdtd/scene";
@@ -31,21 +32,7 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
   const payload = useSavedRunPayload(query.data ? runId : null);
 
   if (query.isPending) return <LoadingRows label="Loading the run" />;
-  if (query.isError) {
-    const notFound = query.error instanceof ApiError && query.error.status === 404;
-    return (
-      <div className="flex flex-col gap-4">
-        <ErrorState
-          title={notFound ? "No such run" : "The run could not be loaded"}
-          message={notFound ? "It may have been deleted, or it belongs to a team you are not on." : query.error.message}
-          onRetry={notFound ? undefined : () => void query.refetch()}
-        />
-        <Link href={`/studies/${studyId}`} className="text-sm font-medium text-tide-600 hover:underline">
-          Back to the study
-        </Link>
-      </div>
-    );
-  }
+  if (query.isError) return <LoadFailure subject="run" error={query.error} onRetry={() => void query.refetch()} back={{ href: `/studies/${studyId}`, label: "Back to the study" }} />;
   const { run, role } = query.data;
 
   return (
@@ -125,17 +112,13 @@ function SavedRunHeader({ run, role, callerId }: { run: RunRecord; role: Paramet
   ];
   return (
     <div>
-      <nav aria-label="Breadcrumb" className="text-sm text-muted">
-        <Link href="/dashboard" className="hover:text-tide-600">
-          Studies
-        </Link>
-        <span aria-hidden> / </span>
-        <Link href={`/studies/${run.studyId}`} className="hover:text-tide-600">
-          Study
-        </Link>
-        <span aria-hidden> / </span>
-        <span className="text-ink-soft">Saved run</span>
-      </nav>
+      <Breadcrumb
+        links={[
+          { href: "/dashboard", label: "Studies" },
+          { href: `/studies/${run.studyId}`, label: "Study" },
+        ]}
+        current="Saved run"
+      />
       <div className="mt-2 flex flex-wrap items-center gap-3">
         <h1 className="text-[26px] font-semibold leading-tight text-ink">
           {run.sceneName ?? "Deleted scene"} <span className="font-normal text-muted">version {run.sceneVersion}</span>

@@ -1,5 +1,6 @@
 // The numbers a scene implies before anything runs: grid, time step, resolved band, size, and
 // the solver's warnings. Recomputed from the scene alone, so it is always current.
+import { FigureList, SolverWarnings } from "@/components/ui/figure-list";
 import type { GridPlan } from "@/lib/fdtd/grid";
 
 const number = new Intl.NumberFormat("en-GB", { maximumSignificantDigits: 3 });
@@ -22,24 +23,8 @@ export function GridFigures({ grid }: { grid: GridPlan }) {
   ];
   return (
     <div className="flex flex-col gap-3">
-      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
-        {rows.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-muted">{label}</dt>
-            <dd className="tabular font-mono text-[13px] text-ink">{value}</dd>
-          </div>
-        ))}
-      </dl>
-      {grid.warnings.length > 0 ? (
-        <ul aria-label="Warnings" className="flex flex-col gap-1.5">
-          {grid.warnings.map((warning) => (
-            <li key={warning.code + (warning.path ?? "")} className="rounded-md border border-signal-warn/30 bg-[#fdf6e7] px-3 py-2 text-[13px] text-ink-soft">
-              <span className="font-medium text-signal-warn">Check: </span>
-              {warning.message}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <FigureList rows={rows} />
+      <SolverWarnings warnings={grid.warnings} />
     </div>
   );
 }

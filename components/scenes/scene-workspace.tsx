@@ -1,16 +1,16 @@
 "use client";
 // One scene: what it is, what grid it implies, and running it in this browser with the field
 // shown live and, afterwards, replayable over the snapshots.
-import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import { RunPanel } from "@/components/run/run-panel";
 import { rememberSessionRun } from "@/components/run/session-runs";
 import { useBrowserRun } from "@/components/run/use-browser-run";
 import { RoleBadge } from "@/components/studies/role-badge";
 import { SceneSketch } from "@/components/studies/scene-sketch";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
+import { LoadFailure } from "@/components/ui/load-failure";
 import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { roleAllows } from "@/lib/access/roles";
-import { ApiError } from "@/lib/client/api";
 import { formatWhen } from "@/lib/client/format";
 import { useScene } from "@/lib/client/queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
@@ -36,27 +36,20 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
   }, [finished, record]);
 
   if (query.isPending) return <LoadingRows label="Loading the scene" />;
-  if (query.isError) {
-    const notFound = query.error instanceof ApiError && query.error.status === 404;
-    return <ErrorState title={notFound ? "No such scene" : "The scene could not be loaded"} message={notFound ? "It may have been deleted, or it belongs to a team you are not on." : query.error.message} />;
-  }
+  if (query.isError) return <LoadFailure subject="scene" error={query.error} />;
   const { role } = query.data;
   const current = query.data.scene;
 
   return (
     <div className="flex flex-col gap-6">
       <div>
-        <nav aria-label="Breadcrumb" className="text-sm text-muted">
-          <Link href="/dashboard" className="hover:text-tide-600">
-            Studies
-          </Link>
-          <span aria-hidden> / </span>
-          <Link href={`/studies/${studyId}`} className="hover:text-tide-600">
-            Study
-          </Link>
-          <span aria-hidden> / </span>
-          <span className="text-ink-soft">Scene</span>
-        </nav>
+        <Breadcrumb
+          links={[
+            { href: "/dashboard", label: "Studies" },
+            { href: `/studies/${studyId}`, label: "Study" },
+          ]}
+          current="Scene"
+        />
         <div className="mt-2 flex flex-wrap items-center gap-3">
           <h1 className="text-[26px] font-semibold leading-tight text-ink">{current.name}</h1>
           <RoleBadge role={role} />

@@ -1,7 +1,7 @@
 "use client";
-import Link from "next/link";
-import { ErrorState, LoadingRows } from "@/components/ui/states";
-import { ApiError } from "@/lib/client/api";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
+import { LoadFailure } from "@/components/ui/load-failure";
+import { LoadingRows } from "@/components/ui/states";
 import { formatWhen } from "@/lib/client/format";
 import { useStudy } from "@/lib/client/queries";
 import type { ActivityItem } from "@/lib/http/api-types";
@@ -46,33 +46,13 @@ export function StudyView({ studyId }: { studyId: string }) {
   const query = useStudy(studyId);
 
   if (query.isPending) return <LoadingRows label="Loading the study" />;
-  if (query.isError) {
-    const notFound = query.error instanceof ApiError && query.error.status === 404;
-    return (
-      <div className="flex flex-col gap-4">
-        <ErrorState
-          title={notFound ? "No such study" : "The study could not be loaded"}
-          message={notFound ? "It may have been deleted, or it belongs to a team you are not on." : query.error.message}
-          onRetry={notFound ? undefined : () => query.refetch()}
-        />
-        <Link href="/dashboard" className="text-sm font-medium text-tide-600 hover:underline">
-          Back to studies
-        </Link>
-      </div>
-    );
-  }
+  if (query.isError) return <LoadFailure subject="study" error={query.error} onRetry={() => void query.refetch()} back={{ href: "/dashboard", label: "Back to studies" }} />;
 
   const { study, role, scenes, activity } = query.data;
   return (
     <div className="flex flex-col gap-8">
       <div>
-        <nav aria-label="Breadcrumb" className="text-sm text-muted">
-          <Link href="/dashboard" className="hover:text-tide-600">
-            Studies
-          </Link>
-          <span aria-hidden> / </span>
-          <span className="text-ink-soft">{study.siteReference || "Study"}</span>
-        </nav>
+        <Breadcrumb links={[{ href: "/dashboard", label: "Studies" }]} current={study.siteReference || "Study"} />
         <div className="mt-2 flex flex-wrap items-center gap-3">
           <h1 className="text-[28px] font-semibold leading-tight text-ink">{study.title}</h1>
           <RoleBadge role={role} />

@@ -6,6 +6,7 @@ import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { rateOf, useStepRate } from "@/components/scene-editor/step-rate/use-step-rate";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { Button } from "@/components/ui/button";
 import { EmptyState, ErrorState, LoadingRows } from "@/components/ui/states";
 import { roleAllows, type TeamRole } from "@/lib/access/roles";
@@ -433,17 +434,13 @@ export function SweepWorkbench({ studyId, sceneId, fromBlockId }: { studyId: str
   return (
     <div className="flex flex-col gap-6">
       <div>
-        <nav aria-label="Breadcrumb" className="text-sm text-muted">
-          <Link href="/dashboard" className="hover:text-tide-600">
-            Studies
-          </Link>
-          <span aria-hidden> / </span>
-          <Link href={`/studies/${studyId}`} className="hover:text-tide-600">
-            {record.title}
-          </Link>
-          <span aria-hidden> / </span>
-          <span className="text-ink-soft">Parameter sweep</span>
-        </nav>
+        <Breadcrumb
+          links={[
+            { href: "/dashboard", label: "Studies" },
+            { href: `/studies/${studyId}`, label: record.title },
+          ]}
+          current="Parameter sweep"
+        />
         <h1 className="mt-2 text-[28px] leading-tight font-semibold text-ink">Parameter sweep</h1>
         <p className="mt-2 max-w-3xl text-[15px] leading-relaxed text-ink-soft">
           Step one quantity of a scene over a range, run every case here in your browser, and compare each with a reference to read the insertion loss per band.

@@ -1,18 +1,11 @@
 // Sound pressure level maps on the solver's output grid (the layout of FieldSnapshot), in dB re 20 uPa,
 // with NaN where no level is defined (inside solids, or where the pressure never moved).
+import type { DomainGrid } from "@/lib/fdtd/simulation";
+
 import { levelFromMeanSquare } from "./bands";
 
-/** Values on a regular grid: value (a, b) at (x0 + a spacing, y0 + b spacing); row-major, a fastest. */
-export interface LevelGrid {
-  width: number;
-  height: number;
-  /** Position of value (0, 0), m. */
-  x0: number;
-  y0: number;
-  /** Spacing of the values, m. */
-  spacing: number;
-  values: Float32Array;
-}
+/** Levels (or any values) on the solver's output grid: the layout of its snapshots and level maps. */
+export type LevelGrid = DomainGrid;
 
 /**
  * Level map from a map of root-mean-square pressure (LevelMaps.rms), Pa. A zero or non-finite rms has no

@@ -60,10 +60,8 @@ export interface ReceiverTrace {
   velocityY: Float32Array;
 }
 
-/** A pressure field over the domain (PML left out): value (a, b) at scene position (x0 + a dx, y0 + b dx). */
-export interface FieldSnapshot {
-  step: number;
-  time: number;
+/** Values on a regular grid over the domain (PML left out): value (a, b) at scene position (x0 + a dx, y0 + b dx). */
+export interface DomainGrid {
   /** Columns and rows; row-major, a fastest. */
   width: number;
   height: number;
@@ -73,6 +71,12 @@ export interface FieldSnapshot {
   /** Spacing of the values, m. */
   spacing: number;
   values: Float32Array;
+}
+
+/** A pressure field over the domain at one time step, Pa. */
+export interface FieldSnapshot extends DomainGrid {
+  step: number;
+  time: number;
 }
 
 export interface LevelMaps {

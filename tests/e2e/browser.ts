@@ -3,6 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { SignInPage } from "./pages/sign-in-page";
 
 export const baseUrl = process.env.RAREFACT_E2E_BASE_URL ?? "http://127.0.0.1:3000";
 
@@ -43,6 +44,16 @@ export async function openBrowser(): Promise<{ context: BrowserContext; page: Pa
       fs.rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/** A fresh browser signed in through the sign-in form, waiting on the dashboard it lands on. */
+export async function signedInBrowser(email: string, password: string): Promise<Awaited<ReturnType<typeof openBrowser>>> {
+  const browser = await openBrowser();
+  const signIn = new SignInPage(browser.page);
+  await signIn.open();
+  await signIn.signIn(email, password);
+  await browser.page.waitForURL("**/dashboard");
+  return browser;
 }
 
 /** Saves a screenshot for people to look at (tests/e2e/artifacts, git-ignored). */

@@ -3,9 +3,8 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
 import { sceneTemplates } from "@/lib/scene-templates";
-import { keepScreenshot, openBrowser } from "./browser";
+import { keepScreenshot, signedInBrowser } from "./browser";
 import { DashboardPage } from "./pages/dashboard-page";
-import { SignInPage } from "./pages/sign-in-page";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
 
@@ -30,11 +29,7 @@ describe("running a scene in the browser", () => {
   let close: () => Promise<void>;
 
   beforeAll(async () => {
-    ({ page, close } = await openBrowser());
-    const signIn = new SignInPage(page);
-    await signIn.open();
-    await signIn.signIn(engineer.email, demoPassword);
-    await page.waitForURL("**/dashboard");
+    ({ page, close } = await signedInBrowser(engineer.email, demoPassword));
   });
   afterAll(async () => {
     await close();

@@ -5,8 +5,7 @@ import fs from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
-import { keepScreenshot, openBrowser } from "./browser";
-import { SignInPage } from "./pages/sign-in-page";
+import { keepScreenshot, signedInBrowser } from "./browser";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
 
@@ -29,11 +28,7 @@ describe("saved runs and their analysis", () => {
   let close: () => Promise<void>;
 
   beforeAll(async () => {
-    ({ page, close } = await openBrowser());
-    const signIn = new SignInPage(page);
-    await signIn.open();
-    await signIn.signIn(engineer.email, demoPassword);
-    await page.waitForURL("**/dashboard");
+    ({ page, close } = await signedInBrowser(engineer.email, demoPassword));
   });
   afterAll(async () => {
     await close();

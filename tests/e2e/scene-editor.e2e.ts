@@ -6,10 +6,9 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoMembers, demoPassword } from "@/db/seed/demo-accounts";
 import type { Scene } from "@/lib/fdtd/scene";
-import { keepScreenshot, openBrowser } from "./browser";
+import { keepScreenshot, signedInBrowser } from "./browser";
 import { DashboardPage } from "./pages/dashboard-page";
 import { SceneEditorPage } from "./pages/scene-editor-page";
-import { SignInPage } from "./pages/sign-in-page";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
 const fixture = (name: string) => path.resolve("tests/fixtures/import", name);
@@ -31,11 +30,7 @@ describe("editing a scene in the browser", () => {
   let sceneId: string;
 
   beforeAll(async () => {
-    ({ page, close } = await openBrowser());
-    const signIn = new SignInPage(page);
-    await signIn.open();
-    await signIn.signIn(engineer.email, demoPassword);
-    await page.waitForURL("**/dashboard");
+    ({ page, close } = await signedInBrowser(engineer.email, demoPassword));
     const teamId = await new DashboardPage(page).activeTeamId();
     const study = await page.request.post(`/api/teams/${teamId}/studies`, { data: { title: "Editor check (browser test)" } });
     studyId = ((await study.json()) as { study: { id: string } }).study.id;

@@ -1,24 +1,21 @@
 import "../helpers/test-database";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as blockRoute from "@/app/api/blocks/[blockId]/route";
-import * as meRoute from "@/app/api/me/route";
 import * as runRoute from "@/app/api/runs/[runId]/route";
 import * as sceneRunsRoute from "@/app/api/scenes/[sceneId]/runs/route";
 import * as blocksRoute from "@/app/api/studies/[studyId]/blocks/route";
 import * as studyScenesRoute from "@/app/api/studies/[studyId]/scenes/route";
-import * as teamStudiesRoute from "@/app/api/teams/[teamId]/studies/route";
 import { closeDb } from "@/db/client";
-import { demoMembers, demoPassword } from "@/db/seed/demo-accounts";
-import { prepareDatabase } from "@/db/startup";
 import type { TeamRole } from "@/lib/access/roles";
 import { parseSceneOrThrow } from "@/lib/fdtd/scene";
 import { runScene } from "@/lib/fdtd/simulation";
 import type { BlockItem, RunRecord, SceneRecord } from "@/lib/http/api-types";
 import { encodeRunPayload } from "@/lib/run-record/payload";
-import { callRoute, signInAs, testOrigin } from "../helpers/api";
+import { callRoute, testOrigin } from "../helpers/api";
+import { openDemoStudy } from "../helpers/demo-study";
 import { tinySceneInput } from "../run-record/fixtures";
 
-const cookies = new Map<TeamRole, string>();
+let cookies = new Map<TeamRole, string>();
 let studyId = "";
 let sceneRecord: SceneRecord;
 let savedRun: RunRecord;
@@ -33,12 +30,7 @@ function addRunBlock(role: TeamRole, runId: string, afterBlockId: string | null 
 }
 
 beforeAll(async () => {
-  await prepareDatabase({ seed: true });
-  for (const member of demoMembers) cookies.set(member.role, await signInAs(member.email, demoPassword));
-  const me = await callRoute(meRoute.GET, { path: "/api/me", cookie: cookies.get("owner") });
-  const teamId = ((await me.json()) as { activeTeamId: string }).activeTeamId;
-  const list = await callRoute(teamStudiesRoute.GET, { path: `/api/teams/${teamId}/studies`, params: { teamId }, cookie: cookies.get("owner") });
-  studyId = ((await list.json()) as { studies: { id: string }[] }).studies[0]!.id;
+  ({ cookies, studyId } = await openDemoStudy());
   const created = await callRoute(studyScenesRoute.POST, { path: `/api/studies/${studyId}/scenes`, params: { studyId }, cookie: cookies.get("editor"), body: { name: "Run block check", data: tinySceneInput() } });
   sceneRecord = ((await created.json()) as { scene: SceneRecord }).scene;
   const scene = parseSceneOrThrow(sceneRecord.data);

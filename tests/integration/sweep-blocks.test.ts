@@ -1,20 +1,17 @@
 // Sweep results kept in the notebook: a chart block holding the sweep's definition and numbers.
 import "../helpers/test-database";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as meRoute from "@/app/api/me/route";
 import * as blocksRoute from "@/app/api/studies/[studyId]/blocks/route";
 import * as studyRoute from "@/app/api/studies/[studyId]/route";
-import * as teamStudiesRoute from "@/app/api/teams/[teamId]/studies/route";
 import { closeDb } from "@/db/client";
-import { demoMembers, demoPassword } from "@/db/seed/demo-accounts";
-import { prepareDatabase } from "@/db/startup";
 import type { TeamRole } from "@/lib/access/roles";
 import type { BlockItem, StudyResponse } from "@/lib/http/api-types";
 import { chartContentSchema } from "@/lib/validation/blocks";
-import { callRoute, signInAs } from "../helpers/api";
+import { callRoute } from "../helpers/api";
+import { openDemoStudy } from "../helpers/demo-study";
 import { definition, results } from "../sweeps/fixtures";
 
-const cookies = new Map<TeamRole, string>();
+let cookies = new Map<TeamRole, string>();
 let studyId = "";
 let sceneId = "";
 let sceneVersion = 1;
@@ -31,12 +28,7 @@ async function blocks(role: TeamRole): Promise<BlockItem[]> {
 const sweepContent = () => ({ runIds: [], quantity: "sweep", sweep: { definition: { ...definition, sceneId, sceneVersion }, results } });
 
 beforeAll(async () => {
-  await prepareDatabase({ seed: true });
-  for (const member of demoMembers) cookies.set(member.role, await signInAs(member.email, demoPassword));
-  const me = await callRoute(meRoute.GET, { path: "/api/me", cookie: cookies.get("owner") });
-  const teamId = ((await me.json()) as { activeTeamId: string }).activeTeamId;
-  const list = await callRoute(teamStudiesRoute.GET, { path: `/api/teams/${teamId}/studies`, params: { teamId }, cookie: cookies.get("owner") });
-  studyId = ((await list.json()) as { studies: { id: string }[] }).studies[0]!.id;
+  ({ cookies, studyId } = await openDemoStudy());
   const study = (await (await callRoute(studyRoute.GET, { path: `/api/studies/${studyId}`, params: { studyId }, cookie: cookies.get("owner") })).json()) as StudyResponse;
   sceneId = study.scenes[0]!.id;
   sceneVersion = study.scenes[0]!.version;

@@ -6,8 +6,8 @@ import { useMemo, useState } from "react";
 import type { Scene } from "@/lib/fdtd/scene";
 import type { CsvTarget } from "@/lib/scene-import/csv";
 
-import { NumberField, SegmentedChoice, type Choice } from "../inspector-fields";
-import { DEFAULT_DRAWING_SETTINGS } from "../model/drawing";
+import { SegmentedChoice, type Choice } from "../inspector-fields";
+import { BarrierThicknessField, useBarrierThickness } from "./barrier-thickness-field";
 import { planImport, type PlannedImport } from "./import-edits";
 import { ImportFooter, type Refusal } from "./import-footer";
 
@@ -25,7 +25,7 @@ const TARGET_HINTS: Record<CsvTarget, string> = {
 
 export function CsvImportPanel({ scene, text, refusal, onApply, onCancel }: { scene: Scene; text: string; refusal: Refusal | null; onApply: (plan: PlannedImport) => void; onCancel: () => void }) {
   const [target, setTarget] = useState<CsvTarget>("wall");
-  const [wallThickness, setWallThickness] = useState(DEFAULT_DRAWING_SETTINGS.wallThickness);
+  const [wallThickness, setWallThickness] = useBarrierThickness();
   const plan = useMemo(() => planImport(scene, { kind: "csv", text, target, wallThickness }), [scene, text, target, wallThickness]);
 
   return (
@@ -36,19 +36,7 @@ export function CsvImportPanel({ scene, text, refusal, onApply, onCancel }: { sc
       </p>
       {target === "wall" ? (
         <div className="w-40">
-          <NumberField
-            label="Barrier thickness"
-            unit="m"
-            value={wallThickness}
-            min={0}
-            exclusiveMin
-            testId="import-thickness"
-            onCommit={(value) => {
-              if (value === undefined) return "required";
-              setWallThickness(value);
-              return null;
-            }}
-          />
+          <BarrierThicknessField value={wallThickness} onChange={setWallThickness} />
         </div>
       ) : null}
       <ImportFooter plan={plan} refusal={refusal} onApply={onApply} onCancel={onCancel} />

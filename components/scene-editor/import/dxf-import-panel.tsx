@@ -8,7 +8,7 @@ import { centringOffset, LENGTH_UNIT_NAMES, LENGTH_UNITS, METRES_PER_UNIT, type 
 import { describeBounds } from "@/lib/scene-import/geometry";
 
 import { formatNumber, NumberField, SelectField, type Choice } from "../inspector-fields";
-import { DEFAULT_DRAWING_SETTINGS } from "../model/drawing";
+import { BarrierThicknessField, useBarrierThickness } from "./barrier-thickness-field";
 import { planImport, type PlannedImport } from "./import-edits";
 import { ImportFooter, type Refusal } from "./import-footer";
 
@@ -42,7 +42,7 @@ export function DxfImportPanel({
 }) {
   const [roles, setRoles] = useState<Record<string, LayerRoles>>({});
   const [units, setUnits] = useState<LengthUnit | typeof NO_UNIT>(drawing.declaredUnits ?? NO_UNIT);
-  const [wallThickness, setWallThickness] = useState(DEFAULT_DRAWING_SETTINGS.wallThickness);
+  const [wallThickness, setWallThickness] = useBarrierThickness();
   const [offset, setOffset] = useState<Point>({ x: 0, y: 0 });
 
   const layers = useMemo(
@@ -133,19 +133,7 @@ export function DxfImportPanel({
           onChange={setUnits}
           hint={drawing.declaredUnits ? `The drawing says ${LENGTH_UNIT_NAMES[drawing.declaredUnits]}.` : (drawing.unitsNote ?? undefined)}
         />
-        <NumberField
-          label="Barrier thickness"
-          unit="m"
-          value={wallThickness}
-          min={0}
-          exclusiveMin
-          testId="import-thickness"
-          onCommit={(value) => {
-            if (value === undefined) return "required";
-            setWallThickness(value);
-            return null;
-          }}
-        />
+        <BarrierThicknessField value={wallThickness} onChange={setWallThickness} />
       </div>
 
       <div className="flex flex-col gap-2">

@@ -1,12 +1,10 @@
 // Building an entity from clicks: the points placed so far, and turning them into a solid, barrier,
 // treated surface or receiver line when the person finishes. Pure, so the canvas only routes events.
 import type { Point, Scene } from "@/lib/fdtd/scene";
+import { openRing, samePoint, signedDoubleArea, withoutRepeatedPoints } from "@/lib/scene-import/geometry";
 
 import { addReceiverLine, addSolid, addSurface, addWall, type Added } from "./scene-edits";
 import type { ToolId } from "./tools";
-
-/** Points closer than this (metres) count as the same click: a double-click places one corner, not two. */
-export const SAME_POINT_TOLERANCE = 1e-9;
 
 export interface DrawingSettings {
   /** Thickness of a new barrier, m. */
@@ -17,27 +15,10 @@ export interface DrawingSettings {
 
 export const DEFAULT_DRAWING_SETTINGS: DrawingSettings = { wallThickness: 0.2, receiverLineCount: 10 };
 
-function samePoint(a: Point, b: Point): boolean {
-  return Math.abs(a.x - b.x) <= SAME_POINT_TOLERANCE && Math.abs(a.y - b.y) <= SAME_POINT_TOLERANCE;
-}
-
-/** The points with each point that repeats its predecessor left out. */
-export function withoutRepeats(points: readonly Point[]): Point[] {
-  const out: Point[] = [];
-  for (const p of points) if (out.length === 0 || !samePoint(out[out.length - 1]!, p)) out.push(p);
-  return out;
-}
-
-/** Twice the signed area of a polygon (shoelace formula); zero when it encloses nothing. */
-export function signedDoubleArea(polygon: readonly Point[]): number {
-  let sum = 0;
-  for (let k = 0; k < polygon.length; k++) {
-    const a = polygon[k]!;
-    const b = polygon[(k + 1) % polygon.length]!;
-    sum += a.x * b.y - b.x * a.y;
-  }
-  return sum;
-}
+// Clicks and imported files tidy points the same way (a double-click places one corner, not two), so
+// the plane geometry lives once, in the imports' module; the editor's names stay for its callers.
+export { signedDoubleArea };
+export const withoutRepeats = withoutRepeatedPoints;
 
 /** Points a path tool needs before it can finish. */
 export function pointsNeeded(tool: ToolId): number {
@@ -72,7 +53,7 @@ export function finishDrawing(scene: Scene, tool: ToolId, clicked: readonly Poin
   switch (tool) {
     case "solid": {
       // A closing click on the first corner is not a new corner.
-      const polygon = points.length > 1 && samePoint(points[0]!, points[points.length - 1]!) ? points.slice(0, -1) : points;
+      const polygon = openRing(clicked);
       if (polygon.length < 3 || Math.abs(signedDoubleArea(polygon)) < 1e-12) return null;
       return addSolid(scene, polygon);
     }
