@@ -20,7 +20,7 @@ async function fieldPicture(page: Page): Promise<{ png: Buffer; colours: number 
 async function openScene(page: Page, sceneName: string): Promise<void> {
   await page.goto("/dashboard");
   await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-  await page.getByRole("link", { name: sceneName }).click();
+  await page.getByRole("link", { name: sceneName, exact: true }).click();
   await page.getByRole("button", { name: "Run in this browser" }).waitFor();
 }
 

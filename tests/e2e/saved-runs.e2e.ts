@@ -1,6 +1,6 @@
 // Saved runs and the numbers an engineer reports, in a browser: run the demo's reference and design A,
 // save both, open design A's saved run, read its band table, pair it with the reference for the
-// insertion loss, export a CSV, and open the printable report.
+// insertion loss, make a reference on request, export a CSV, and open the printable report.
 import fs from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -13,7 +13,7 @@ const engineer = demoMembers.find((m) => m.role === "owner")!;
 async function runAndSave(page: Page, sceneName: string): Promise<string> {
   await page.goto("/dashboard");
   await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-  await page.getByRole("link", { name: sceneName }).click();
+  await page.getByRole("link", { name: sceneName, exact: true }).click();
   await page.getByRole("button", { name: "Run in this browser" }).click();
   await page.getByTestId("run-phase").filter({ hasText: "Finished" }).waitFor({ timeout: 240_000 });
   const saved = page.getByRole("link", { name: "Open the saved run" });
@@ -55,6 +55,13 @@ describe("saved runs and their analysis", () => {
     expect(await lossTable.locator("tbody tr").count()).toBeGreaterThan(0);
     await lossTable.scrollIntoViewIfNeeded();
     await keepScreenshot(page, "saved-run-insertion-loss");
+
+    // A reference made on request: design A without its barrier, saved as a scene, run here, saved, chosen.
+    await page.getByTestId("reference-maker").getByRole("button", { name: "Make the reference and run it" }).click();
+    await page.getByTestId("reference-maker").getByText("Saved and chosen as the reference.").waitFor({ timeout: 240_000 });
+    await lossTable.waitFor();
+    expect(await lossTable.locator("tbody tr").count()).toBeGreaterThan(0);
+    expect(await page.getByTestId("reference-select").inputValue()).not.toBe(referenceRunId);
 
     // The band table as CSV: a header with units, then numbers.
     const bandPanel = page.getByTestId("band-level-table").locator("xpath=ancestor::section[1]");
