@@ -5,6 +5,7 @@
 import { Fragment, useMemo, useRef, useState } from "react";
 
 import { downloadBlob } from "@/components/field-view/field-view-toolbar";
+import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { type Atmosphere, BAND_CENTRE_SIMPLIFICATION, bandAirAttenuation, molarConcentrationOfWaterVapour } from "@/lib/analysis/air-absorption";
 import { bandLevelTable, type BandLevelTable, type BandsPerOctave, sumLevels } from "@/lib/analysis/band-levels";
 import { bandLevelsCsv } from "@/lib/analysis/csv";
@@ -20,6 +21,8 @@ import { downloadCsv, exportFileName, svgChartPng } from "./export-files";
 export interface BandLevelsPanelProps {
   run: DecodedRun;
   runId: string;
+  /** Given on the saved run's page: offers "Add to notebook" with the panel's choices. */
+  studyId?: string;
   receiverIds: readonly string[];
   /** GridPlan.maxResolvedFrequency, Hz. */
   highestResolvedFrequency: number;
@@ -69,7 +72,7 @@ function airEffect(table: BandLevelTable, run: DecodedRun, atmosphere: Atmospher
 
 const tableCell = "px-2 py-1 text-right tabular-nums";
 
-export function BandLevelsPanel({ run, runId, receiverIds, highestResolvedFrequency, sceneTemperature = 20 }: BandLevelsPanelProps) {
+export function BandLevelsPanel({ run, runId, studyId, receiverIds, highestResolvedFrequency, sceneTemperature = 20 }: BandLevelsPanelProps) {
   const [bandsPerOctave, setBandsPerOctave] = useState<BandsPerOctave>(1);
   const [weighting, setWeighting] = useState<"Z" | "A">("Z");
   const [airOn, setAirOn] = useState(false);
@@ -111,6 +114,14 @@ export function BandLevelsPanel({ run, runId, receiverIds, highestResolvedFreque
         <>
           <Segmented label="Bands" value={bandsPerOctave} onChange={setBandsPerOctave} options={[{ value: 1, label: "Octave" }, { value: 3, label: "1/3 octave" }]} />
           <Segmented label="Frequency weighting" value={weighting} onChange={setWeighting} options={[{ value: "Z", label: "Unweighted", title: "Z: no frequency weighting" }, { value: "A", label: "A-weighted", title: "A-weighting of IEC 61672-1" }]} />
+          {studyId ? (
+            <AddChartButton
+              studyId={studyId}
+              runId={runId}
+              choices={{ quantity: "band-levels", runIds: [runId], receiverIds: chosen.map((receiver) => receiver.id), bandsPerOctave, weighting }}
+              unavailableReason={chosen.length === 0 ? "Choose at least one receiver first." : undefined}
+            />
+          ) : null}
         </>
       }
     >

@@ -7,6 +7,7 @@ import { useMemo, useRef, useState } from "react";
 
 import { FieldView, type FieldViewHandle } from "@/components/field-view/field-view";
 import { downloadBlob } from "@/components/field-view/field-view-toolbar";
+import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { Button } from "@/components/ui/button";
 import { bandLevelTable, type BandsPerOctave } from "@/lib/analysis/band-levels";
 import { insertionLossCsv } from "@/lib/analysis/csv";
@@ -43,7 +44,7 @@ export function runLabel(item: Pick<RunListItem, "sceneName" | "sceneVersion" | 
 }
 
 /** Band levels of the chosen receivers in both runs and their difference; the reason when they do not pair. */
-function computeInsertionLoss(run: DecodedRun, reference: DecodedRun, receiverIds: readonly string[], bandsPerOctave: BandsPerOctave, weighting: "Z" | "A", highestResolvedFrequency: number): InsertionLossTable | string {
+export function computeInsertionLoss(run: DecodedRun, reference: DecodedRun, receiverIds: readonly string[], bandsPerOctave: BandsPerOctave, weighting: "Z" | "A", highestResolvedFrequency: number): InsertionLossTable | string {
   const pick = (r: DecodedRun) => receiverIds.map((id) => r.receivers.find((receiver) => receiver.id === id)).filter((receiver) => receiver !== undefined);
   try {
     const options = { bandsPerOctave, weighting, highestResolvedFrequency };
@@ -93,6 +94,12 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
         <>
           <Segmented label="Bands" value={bandsPerOctave} onChange={setBandsPerOctave} options={[{ value: 1, label: "Octave" }, { value: 3, label: "1/3 octave" }]} />
           <Segmented label="Frequency weighting" value={weighting} onChange={setWeighting} options={[{ value: "Z", label: "Unweighted" }, { value: "A", label: "A-weighted" }]} />
+          <AddChartButton
+            studyId={studyId}
+            runId={runId}
+            choices={{ quantity: "insertion-loss", runIds: referenceId ? [runId, referenceId] : [runId], receiverIds, bandsPerOctave, weighting }}
+            unavailableReason={receiverIds.length === 0 ? "Choose at least one receiver first." : !table || typeof table === "string" ? "Choose a reference that fits this run first." : undefined}
+          />
         </>
       }
     >

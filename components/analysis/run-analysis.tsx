@@ -4,6 +4,7 @@
 // beside it, the sound of a receiver, and exports of each. Every piece is also exported on its own.
 import { useMemo, useState } from "react";
 
+import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { useStudyRuns } from "@/lib/client/run-queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene, type Scene } from "@/lib/fdtd/scene";
@@ -45,7 +46,7 @@ export interface RunAnalysisProps {
 /** Points per wavelength assumed when the frozen scene cannot be read (the solver's default). */
 const FALLBACK_POINTS_PER_WAVELENGTH = 10;
 
-interface SceneFacts {
+export interface SceneFacts {
   scene: Scene | null;
   problem?: string;
   highestResolvedFrequency: number;
@@ -53,7 +54,7 @@ interface SceneFacts {
 }
 
 /** The frozen scene and the grid's highest resolved frequency; an estimate from the cell size when the scene cannot be read. */
-function sceneFacts(run: DecodedRun): SceneFacts {
+export function sceneFacts(run: DecodedRun): SceneFacts {
   const parsed = parseScene(run.header.scene);
   if (parsed.ok) {
     const grid = deriveGrid(parsed.scene);
@@ -75,6 +76,8 @@ export function RunAnalysis({ runId, studyId, record, run, canCreate }: RunAnaly
   const labels = useMemo(() => new Map((runs.data?.runs ?? []).map((item) => [item.id, runLabel(item)])), [runs.data]);
   const overlayState = useOverlayRuns(run, overlayIds, labels);
   const traces = useMemo(() => analysisTraces(run, runId, receiverIds, overlayState.overlays), [run, runId, receiverIds, overlayState.overlays]);
+  const drawnRunIds = [runId, ...overlayState.overlays.map((overlay) => overlay.runId)];
+  const noReceiver = receiverIds.length === 0 ? "Choose at least one receiver first." : undefined;
 
   if (run.receivers.length === 0) {
     return (
@@ -98,13 +101,17 @@ export function RunAnalysis({ runId, studyId, record, run, canCreate }: RunAnaly
         <ReceiverPicker run={run} selected={receiverIds} onChange={setReceiverIds} />
         <OverlayRunPicker studyId={studyId} runId={runId} run={run} chosen={overlayIds} onChange={setOverlayIds} state={overlayState} />
       </div>
-      <AnalysisPanel title="Pressure at the receivers" testId="traces" description={`${record.sceneName ?? "Deleted scene"} v${record.sceneVersion}: ${run.header.run.stepsRun} steps, ${(run.header.run.simulatedSeconds * 1000).toFixed(1)} ms simulated.`}>
+      <AnalysisPanel
+        title="Pressure at the receivers"
+        testId="traces"
+        actions={<AddChartButton studyId={studyId} runId={runId} choices={{ quantity: "trace", runIds: drawnRunIds, receiverIds }} unavailableReason={noReceiver} />}
+        description={`${record.sceneName ?? "Deleted scene"} v${record.sceneVersion}: ${run.header.run.stepsRun} steps, ${(run.header.run.simulatedSeconds * 1000).toFixed(1)} ms simulated.`}>
         <TraceChart traces={traces} runId={runId} />
       </AnalysisPanel>
-      <AnalysisPanel title="Spectra" testId="spectra">
+      <AnalysisPanel title="Spectra" testId="spectra" actions={<AddChartButton studyId={studyId} runId={runId} choices={{ quantity: "spectrum", runIds: drawnRunIds, receiverIds }} unavailableReason={noReceiver} />}>
         <SpectrumChart traces={traces} runId={runId} highestResolvedFrequency={facts.highestResolvedFrequency} />
       </AnalysisPanel>
-      <BandLevelsPanel run={run} runId={runId} receiverIds={receiverIds} highestResolvedFrequency={facts.highestResolvedFrequency} sceneTemperature={facts.temperature} />
+      <BandLevelsPanel run={run} runId={runId} studyId={studyId} receiverIds={receiverIds} highestResolvedFrequency={facts.highestResolvedFrequency} sceneTemperature={facts.temperature} />
       <InsertionLossPanel runId={runId} studyId={studyId} run={run} scene={facts.scene} receiverIds={receiverIds} highestResolvedFrequency={facts.highestResolvedFrequency} canCreate={canCreate} />
       <ReceiverSound run={run} runId={runId} receiverIds={receiverIds} />
     </div>

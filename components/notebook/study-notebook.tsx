@@ -1,6 +1,6 @@
 "use client";
-// The study as a notebook: notes, scenes, saved runs and sweep results in the order the engineer
-// works the question through. Editors add, move, collapse and
+// The study as a notebook: notes, scenes, saved runs, charts of runs and sweep results in the order the
+// engineer works the question through. Editors add, move, collapse and
 // delete blocks; everyone reads.
 import Link from "next/link";
 import { useState } from "react";
@@ -13,6 +13,8 @@ import { useBlocks, useNotebookMutations } from "@/lib/client/queries";
 import { useStudyRuns } from "@/lib/client/run-queries";
 import type { BlockItem, SceneListItem } from "@/lib/http/api-types";
 import { AddSceneForm } from "./add-scene-form";
+import { ChartBlock } from "./chart-block";
+import { chartBlockTitle, runChartQuantity } from "./chart-block-model";
 import { NotesBlock } from "./notes-block";
 import { RunBlock, runBlockTitle, runIdOfBlock } from "./run-block";
 
@@ -37,6 +39,8 @@ const deleteQuestions: Partial<Record<BlockItem["kind"], string>> = {
   notes: "Delete these notes? This cannot be undone.",
   run: "Remove this run's block from the notebook? The saved run itself stays in the run table.",
 };
+/** Only charts of saved runs: a sweep's block holds numbers that were never saved anywhere else. */
+const deleteRunChartQuestion = "Remove this chart from the notebook? The saved runs it draws stay in the run table.";
 
 export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role: TeamRole; scenes: SceneListItem[] }) {
   const query = useBlocks(studyId);
@@ -87,11 +91,13 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
                   ? runBlockTitle(runById.get(runIdOfBlock(block) ?? ""))
                   : isSweepBlock(block)
                     ? "Sweep result"
-                    : kindLabels[block.kind];
+                    : runChartQuantity(block)
+                      ? chartBlockTitle(block)
+                      : kindLabels[block.kind];
           const kindLabel = isSweepBlock(block) ? "Sweep" : kindLabels[block.kind];
-          const deleteQuestion = deleteQuestions[block.kind];
+          const deleteQuestion = runChartQuantity(block) ? deleteRunChartQuestion : deleteQuestions[block.kind];
           return (
-            <li key={block.id} data-block-kind={block.kind} className="group rounded-lg border border-rule bg-panel shadow-[0_1px_0_rgba(22,33,43,0.04)]">
+            <li key={block.id} id={`block-${block.id}`} data-block-kind={block.kind} className="group rounded-lg border border-rule bg-panel shadow-[0_1px_0_rgba(22,33,43,0.04)]">
               <div className="flex items-center gap-2 border-b border-rule px-3 py-1.5">
                 <IconButton label={collapsed ? "Expand block" : "Collapse block"} onClick={() => toggleCollapsed(block)}>
                   <svg viewBox="0 0 16 16" className={`size-4 transition ${collapsed ? "-rotate-90" : ""}`} aria-hidden>
@@ -137,6 +143,8 @@ export function StudyNotebook({ studyId, role, scenes }: { studyId: string; role
                     <RunBlock block={block} studyId={studyId} />
                   ) : isSweepBlock(block) ? (
                     <SweepResultBlock block={block} studyId={studyId} />
+                  ) : runChartQuantity(block) ? (
+                    <ChartBlock block={block} studyId={studyId} />
                   ) : block.kind === "scene" && scene ? (
                     <ul className="max-w-xl">
                       <SceneCard item={scene} studyId={studyId} />

@@ -1,9 +1,9 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, inArray } from "drizzle-orm";
 import { AppError } from "@/lib/http/app-error";
 import type { BlockItem, BlockKind } from "@/lib/http/api-types";
 import { getDb } from "../client";
-import { scene, studyBlock, user } from "../schema";
+import { run, scene, studyBlock, user } from "../schema";
 import { newId, withDatabaseErrors } from "./wrap";
 
 /** Positions leave gaps so that a block can be inserted between two without renumbering. */
@@ -94,6 +94,29 @@ async function checkSweepScene(studyId: string, kind: BlockKind, content: unknow
   }
 }
 
+/**
+ * A chart of saved runs must name runs of this study only: another study's run would show its results to
+ * members who may not read that study, and a made-up id would never draw. The first stranger is named.
+ */
+async function checkChartRuns(studyId: string, kind: BlockKind, content: unknown): Promise<void> {
+  if (kind !== "chart") return;
+  const runIds = (content as { runIds?: unknown }).runIds;
+  if (!Array.isArray(runIds) || runIds.length === 0) return;
+  const ids = runIds.filter((id): id is string => typeof id === "string");
+  const rows = await withDatabaseErrors("check the chart's runs", async () => {
+    const db = await getDb();
+    return db.select({ id: run.id }).from(run).where(and(eq(run.studyId, studyId), inArray(run.id, ids)));
+  });
+  const known = new Set(rows.map((row) => row.id));
+  const stranger = runIds.findIndex((id) => typeof id !== "string" || !known.has(id));
+  if (stranger >= 0) {
+    const path = "content.runIds";
+    throw new AppError("bad_request:block", `${path}: run ${stranger + 1} (${String(runIds[stranger])}) is not a saved run of this study.`, [
+      { path, message: `Run ${stranger + 1} is not a saved run of this study.` },
+    ]);
+  }
+}
+
 export async function createBlock({
   studyId,
   authorId,
@@ -108,6 +131,7 @@ export async function createBlock({
   afterBlockId: string | null;
 }): Promise<BlockItem> {
   await checkSweepScene(studyId, kind, content);
+  await checkChartRuns(studyId, kind, content);
   const id = await withDatabaseErrors("add the block", async () => {
     const blocks = await selectBlocks(studyId);
     const afterIndex = afterBlockId === null ? blocks.length - 1 : blocks.findIndex((b) => b.id === afterBlockId);

@@ -98,16 +98,59 @@ export type SweepDefinition = z.infer<typeof sweepDefinitionSchema>;
 export type SweepResults = z.output<typeof sweepResultsSchema>;
 export type SweepContent = z.output<typeof sweepContentSchema>;
 
-/** A chart compares saved runs (runIds) by a quantity, or, for "sweep", holds a sweep's definition and result. */
+/** Most runs one chart compares, and most receivers it draws (the analysis draws at most 8 at once). */
+export const MAX_CHART_RUNS = 12;
+export const MAX_CHART_RECEIVERS = 12;
+
+export const chartQuantitySchema = z.enum(["trace", "spectrum", "band-levels", "insertion-loss", "sweep"]);
+export type ChartQuantity = z.infer<typeof chartQuantitySchema>;
+
+/**
+ * A chart compares saved runs (runIds) by a quantity, or, for "sweep", holds a sweep's definition and result.
+ * The display options are the choices made in the run's analysis when the chart was added; all optional, so
+ * charts stored before they existed stay valid. runIds[0] is the run analysed: for traces and spectra the
+ * others are drawn over it, for insertion loss the second is the reference. runLabels keep how each run was
+ * named then, so a chart can still say which run was deleted.
+ */
 export const chartContentSchema = z
   .object({
-    runIds: z.array(z.string().uuid()).max(12, "A chart can compare at most 12 runs."),
-    quantity: z.enum(["trace", "spectrum", "band-levels", "insertion-loss", "sweep"]),
+    runIds: z.array(z.string().uuid("Not a valid run id.")).max(MAX_CHART_RUNS, `A chart can compare at most ${MAX_CHART_RUNS} runs.`),
+    quantity: chartQuantitySchema,
     sweep: sweepContentSchema.optional(),
+    receiverIds: z
+      .array(z.string().min(1, "A receiver id cannot be empty.").max(200))
+      .min(1, "Name at least one receiver, or leave the list out.")
+      .max(MAX_CHART_RECEIVERS, `A chart can draw at most ${MAX_CHART_RECEIVERS} receivers.`)
+      .optional(),
+    bandsPerOctave: z.union([z.literal(1), z.literal(3)], { error: "Bands per octave: 1 (octave) or 3 (one-third octave)." }).optional(),
+    weighting: z.enum(["Z", "A"], { error: "Weighting: Z (none) or A." }).optional(),
+    title: z.string().trim().min(1, "A title cannot be empty; leave it out instead.").max(200, "A chart title can hold at most 200 characters.").optional(),
+    runLabels: z.array(z.string().max(300)).max(MAX_CHART_RUNS).optional(),
   })
   .superRefine((chart, ctx) => {
-    if (chart.quantity === "sweep" && !chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "A sweep chart needs its definition and results." });
-    if (chart.quantity !== "sweep" && chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "Only a sweep chart holds a sweep." });
+    if (chart.quantity === "sweep") {
+      if (!chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "A sweep chart needs its definition and results." });
+      // A sweep keeps its receivers, bands and weighting in its definition; a second copy could disagree.
+      for (const key of ["receiverIds", "bandsPerOctave", "weighting", "runLabels"] as const) {
+        if (chart[key] !== undefined) ctx.addIssue({ code: "custom", path: [key], message: "A sweep chart keeps its options in its definition." });
+      }
+      return;
+    }
+    if (chart.sweep) ctx.addIssue({ code: "custom", path: ["sweep"], message: "Only a sweep chart holds a sweep." });
+    // Charts of no run were accepted before and may be stored (the notebook says they draw nothing), so only
+    // an insertion loss that names runs must name both.
+    if (chart.quantity === "insertion-loss" && chart.runIds.length > 0 && chart.runIds.length !== 2) {
+      ctx.addIssue({ code: "custom", path: ["runIds"], message: "An insertion-loss chart names exactly two runs: the run, then its reference." });
+    }
+    if (new Set(chart.runIds).size !== chart.runIds.length) ctx.addIssue({ code: "custom", path: ["runIds"], message: "Name each run once." });
+    if (chart.receiverIds && new Set(chart.receiverIds).size !== chart.receiverIds.length) ctx.addIssue({ code: "custom", path: ["receiverIds"], message: "Name each receiver once." });
+    if (chart.runLabels && chart.runLabels.length !== chart.runIds.length) ctx.addIssue({ code: "custom", path: ["runLabels"], message: "Give one label per run, in the order of runIds." });
+    const banded = chart.quantity === "band-levels" || chart.quantity === "insertion-loss";
+    if (!banded) {
+      for (const key of ["bandsPerOctave", "weighting"] as const) {
+        if (chart[key] !== undefined) ctx.addIssue({ code: "custom", path: [key], message: "Bands and weighting apply to band-level and insertion-loss charts only." });
+      }
+    }
   });
 export type ChartContent = z.output<typeof chartContentSchema>;
 
