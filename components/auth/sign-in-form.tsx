@@ -1,5 +1,6 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useHydrated } from "@/lib/client/use-hydrated";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -14,6 +15,7 @@ export function SignInForm({ nextPath }: { nextPath: string }) {
   const router = useRouter();
   const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: "", password: "" } });
   const { errors, isSubmitting } = form.formState;
+  const hydrated = useHydrated();
 
   const onSubmit = form.handleSubmit(async (values) => {
     const { error } = await authClient.signIn.email({ email: values.email, password: values.password });
@@ -31,7 +33,7 @@ export function SignInForm({ nextPath }: { nextPath: string }) {
       <TextField id="email" label="E-mail" type="email" autoComplete="email" error={errors.email?.message} {...form.register("email")} />
       <TextField id="password" label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register("password")} />
       {errors.root ? <ErrorState title="Could not sign in" message={errors.root.message ?? ""} /> : null}
-      <Button type="submit" disabled={isSubmitting}>
+      <Button type="submit" disabled={isSubmitting || !hydrated}>
         {isSubmitting ? "Signing in…" : "Sign in"}
       </Button>
       <p className="text-center text-sm text-muted">

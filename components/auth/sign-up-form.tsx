@@ -1,5 +1,6 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useHydrated } from "@/lib/client/use-hydrated";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -15,6 +16,7 @@ export function SignUpForm() {
   const router = useRouter();
   const form = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema), defaultValues: { name: "", email: "", password: "" } });
   const { errors, isSubmitting } = form.formState;
+  const hydrated = useHydrated();
 
   const onSubmit = form.handleSubmit(async (values) => {
     const { error } = await authClient.signUp.email({ name: values.name, email: values.email, password: values.password });
@@ -41,7 +43,7 @@ export function SignUpForm() {
         {...form.register("password")}
       />
       {errors.root ? <ErrorState title="Could not create the account" message={errors.root.message ?? ""} /> : null}
-      <Button type="submit" disabled={isSubmitting}>
+      <Button type="submit" disabled={isSubmitting || !hydrated}>
         {isSubmitting ? "Creating account…" : "Create account"}
       </Button>
       <p className="text-center text-sm text-muted">
