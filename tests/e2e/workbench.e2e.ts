@@ -84,6 +84,7 @@ describe("the workbench in a browser", () => {
     expect(await signIn.messageFor("password")).toMatch(/do not match/);
 
     await page.goto("/sign-up");
+    await page.locator("button[type=submit]:enabled").waitFor();
     await page.fill("#name", "New Person");
     await page.fill("#email", engineer.email);
     await page.fill("#password", "short");

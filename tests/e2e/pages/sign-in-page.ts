@@ -5,6 +5,9 @@ export class SignInPage {
 
   async open(): Promise<void> {
     await this.page.goto("/sign-in");
+    // The form's button is enabled once React has hydrated it; fields typed before that are reset
+    // when the form library registers them.
+    await this.page.locator("button[type=submit]:enabled").waitFor();
   }
 
   async signIn(email: string, password: string): Promise<void> {
