@@ -52,7 +52,15 @@ export async function signedInBrowser(email: string, password: string): Promise<
   const signIn = new SignInPage(browser.page);
   await signIn.open();
   await signIn.signIn(email, password);
-  await browser.page.waitForURL("**/dashboard");
+  try {
+    // The first sign-in after the server starts pays for its cold start (auth set-up, first renders).
+    await browser.page.waitForURL("**/dashboard", { timeout: 120_000 });
+  } catch (error) {
+    await keepScreenshot(browser.page, "sign-in-failed");
+    const shown = await browser.page.locator("form").first().textContent().catch(() => "");
+    await browser.close();
+    throw new Error(`Signing in as ${email} did not reach the dashboard (still at ${browser.page.url()}; the form shows: ${shown}).`, { cause: error });
+  }
   return browser;
 }
 
