@@ -2,7 +2,7 @@
 // Compact form controls for the inspector. A field keeps what is typed as a draft and commits it on
 // Enter or when focus leaves; Escape puts the scene's value back. A value the scene refuses stays in
 // the field with the reason beneath, so nothing typed is silently lost.
-import { useId, useState, type ReactNode } from "react";
+import { useId, useState, type ChangeEvent, type KeyboardEvent, type ReactNode } from "react";
 
 /** Returns why a value was refused, or null when it was applied. */
 export type Commit<T> = (value: T) => string | null;
@@ -55,21 +55,45 @@ function rangeProblem(value: number, props: NumberFieldProps): string | null {
   return null;
 }
 
-export function NumberField(props: NumberFieldProps) {
-  const { label, ariaLabel, value, unit, hint, disabled, testId, placeholder } = props;
-  const id = useId();
-  const shown = formatNumber(value);
-  // What is typed and not yet taken by the scene, with the reason when the scene refused it.
+/**
+ * The text of a field while someone types in it: what is typed and not yet taken by the scene (with the
+ * reason when the scene refused it), following the scene's own value whenever the field is not being
+ * edited (a drag on the canvas, undo, the code view). Enter commits, Escape drops the draft, leaving commits.
+ */
+function useDraftText(shown: string) {
   const [pending, setPending] = useState<{ text: string; error: string | null } | null>(null);
   const [focused, setFocused] = useState(false);
   const [seen, setSeen] = useState(shown);
-  // Follow the scene while the person is not typing here (a drag on the canvas, undo, the code view).
   if (seen !== shown && !focused) {
     setSeen(shown);
     setPending(null);
   }
-  const draft = pending?.text ?? shown;
-  const error = pending?.error ?? null;
+  const inputEvents = (commit: () => void) => ({
+    onFocus: () => setFocused(true),
+    onChange: (event: ChangeEvent<HTMLInputElement>) => setPending({ text: event.target.value, error: null }),
+    onBlur: () => {
+      commit();
+      setFocused(false);
+    },
+    onKeyDown: (event: KeyboardEvent<HTMLInputElement>) => {
+      if (event.key === "Enter") {
+        event.preventDefault();
+        commit();
+      } else if (event.key === "Escape") {
+        event.preventDefault();
+        setPending(null);
+        event.currentTarget.blur();
+      }
+    },
+  });
+  return { pending, setPending, draft: pending?.text ?? shown, error: pending?.error ?? null, inputEvents };
+}
+
+export function NumberField(props: NumberFieldProps) {
+  const { label, ariaLabel, value, unit, hint, disabled, testId, placeholder } = props;
+  const id = useId();
+  const shown = formatNumber(value);
+  const { pending, setPending, draft, error, inputEvents } = useDraftText(shown);
 
   const commit = () => {
     if (pending === null) return;
@@ -107,22 +131,7 @@ export function NumberField(props: NumberFieldProps) {
           aria-describedby={error ? `${id}-error` : undefined}
           className={`${inputClasses(Boolean(error))} font-mono tabular ${unit ? "pr-9" : ""}`}
           value={draft}
-          onFocus={() => setFocused(true)}
-          onChange={(event) => setPending({ text: event.target.value, error: null })}
-          onBlur={() => {
-            commit();
-            setFocused(false);
-          }}
-          onKeyDown={(event) => {
-            if (event.key === "Enter") {
-              event.preventDefault();
-              commit();
-            } else if (event.key === "Escape") {
-              event.preventDefault();
-              setPending(null);
-              (event.target as HTMLInputElement).blur();
-            }
-          }}
+          {...inputEvents(commit)}
         />
         {unit ? <span className="pointer-events-none absolute inset-y-0 right-2 flex items-center text-[11.5px] text-muted">{unit}</span> : null}
       </div>
@@ -139,15 +148,7 @@ export function NumberField(props: NumberFieldProps) {
 
 export function TextInputField({ label, value, onCommit, placeholder, testId }: { label: string; value: string; onCommit: Commit<string>; placeholder?: string; testId?: string }) {
   const id = useId();
-  const [pending, setPending] = useState<{ text: string; error: string | null } | null>(null);
-  const [focused, setFocused] = useState(false);
-  const [seen, setSeen] = useState(value);
-  if (seen !== value && !focused) {
-    setSeen(value);
-    setPending(null);
-  }
-  const draft = pending?.text ?? value;
-  const error = pending?.error ?? null;
+  const { pending, setPending, draft, error, inputEvents } = useDraftText(value);
   const commit = () => {
     if (pending === null) return;
     const refused = draft === value ? null : onCommit(draft);
@@ -165,22 +166,7 @@ export function TextInputField({ label, value, onCommit, placeholder, testId }: 
         placeholder={placeholder}
         className={inputClasses(Boolean(error))}
         value={draft}
-        onFocus={() => setFocused(true)}
-        onChange={(event) => setPending({ text: event.target.value, error: null })}
-        onBlur={() => {
-          commit();
-          setFocused(false);
-        }}
-        onKeyDown={(event) => {
-          if (event.key === "Enter") {
-            event.preventDefault();
-            commit();
-          } else if (event.key === "Escape") {
-            event.preventDefault();
-            setPending(null);
-            (event.target as HTMLInputElement).blur();
-          }
-        }}
+        {...inputEvents(commit)}
       />
       {error ? <p className="text-[11.5px] text-signal-error">{error}</p> : null}
     </div>
