@@ -9,7 +9,8 @@ export default defineConfig({
     include: ["tests/e2e/**/*.e2e.ts"],
     environment: "node",
     testTimeout: 120_000,
-    hookTimeout: 120_000,
+    // Above signedInBrowser's own waits, so that its message (not a bare timeout) reports a failed sign-in.
+    hookTimeout: 360_000,
     fileParallelism: false,
   },
 });
