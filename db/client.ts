@@ -9,9 +9,14 @@ import * as schema from "./schema";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
+/** Stops listening to a channel. */
+export type Unlisten = () => Promise<void>;
+
 interface OpenDatabase {
   db: Database;
   kind: "pglite" | "postgres";
+  /** LISTEN on a channel; PGlite delivers in-process, PostgreSQL over a connection of its own. */
+  listen: (channel: string, onPayload: (payload: string) => void) => Promise<Unlisten>;
   close: () => Promise<void>;
 }
 
@@ -28,7 +33,12 @@ async function openPglite(dir: string): Promise<OpenDatabase> {
   const client = new PGlite(dir);
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder });
-  return { db: db as unknown as Database, kind: "pglite", close: () => client.close() };
+  return {
+    db: db as unknown as Database,
+    kind: "pglite",
+    listen: async (channel, onPayload) => client.listen(channel, onPayload),
+    close: () => client.close(),
+  };
 }
 
 async function openPostgres(url: string): Promise<OpenDatabase> {
@@ -40,7 +50,54 @@ async function openPostgres(url: string): Promise<OpenDatabase> {
   const pool = new Pool({ connectionString: url, max: 10 });
   const db = drizzle(pool, { schema });
   await migrate(db, { migrationsFolder });
-  return { db: db as unknown as Database, kind: "postgres", close: () => pool.end() };
+  const listeners = new Set<{ close: () => Promise<void> }>();
+  return {
+    db: db as unknown as Database,
+    kind: "postgres",
+    listen: async (channel, onPayload) => {
+      const listener = await listenOnPostgres(url, channel, onPayload);
+      listeners.add(listener);
+      return async () => {
+        listeners.delete(listener);
+        await listener.close();
+      };
+    },
+    close: async () => {
+      await Promise.all([...listeners].map((listener) => listener.close()));
+      await pool.end();
+    },
+  };
+}
+
+/**
+ * A pooled connection cannot hold a LISTEN (it goes back to the pool), so each listener keeps a
+ * connection of its own and reconnects after a second if the server drops it.
+ */
+async function listenOnPostgres(url: string, channel: string, onPayload: (payload: string) => void): Promise<{ close: () => Promise<void> }> {
+  const { Client } = await import("pg");
+  let closed = false;
+  let current: InstanceType<typeof Client> | null = null;
+  const connect = async (): Promise<void> => {
+    const client = new Client({ connectionString: url });
+    client.on("notification", (message) => {
+      if (message.channel === channel && message.payload !== undefined) onPayload(message.payload);
+    });
+    client.on("error", (error) => {
+      console.error(`[db] the LISTEN connection for ${channel} failed; reconnecting:`, error.message);
+      void client.end().catch(() => undefined);
+      if (!closed) setTimeout(() => void connect().catch(() => undefined), 1000);
+    });
+    await client.connect();
+    await client.query(`LISTEN "${channel.replace(/"/g, "")}"`);
+    current = client;
+  };
+  await connect();
+  return {
+    close: async () => {
+      closed = true;
+      await current?.end().catch(() => undefined);
+    },
+  };
 }
 
 function openDatabase(): Promise<OpenDatabase> {
@@ -62,6 +119,11 @@ async function getOpenDatabase(): Promise<OpenDatabase> {
 /** The migrated database of this process. */
 export async function getDb(): Promise<Database> {
   return (await getOpenDatabase()).db;
+}
+
+/** Listens to a NOTIFY channel of the process's database. */
+export async function listenToChannel(channel: string, onPayload: (payload: string) => void): Promise<Unlisten> {
+  return (await getOpenDatabase()).listen(channel, onPayload);
 }
 
 export async function getDatabaseKind(): Promise<"pglite" | "postgres"> {

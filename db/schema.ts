@@ -145,10 +145,15 @@ export const invitation = pgTable(
     inviterId: text("inviter_id")
       .notNull()
       .references(() => user.id, { onDelete: "cascade" }),
+    /** SHA-256 of the invitation link's secret; the link itself is only ever in the e-mail. */
+    tokenHash: text("token_hash"),
+    acceptedAt: timestamp("accepted_at"),
+    acceptedBy: text("accepted_by").references(() => user.id, { onDelete: "set null" }),
   },
   (table) => [
     index("invitation_teamId_idx").on(table.teamId),
     index("invitation_email_idx").on(table.email),
+    uniqueIndex("invitation_token_hash_uidx").on(table.tokenHash),
   ],
 );
 
@@ -207,13 +212,15 @@ export const scene = pgTable(
     version: integer("version").notNull().default(1),
     forkedFromSceneId: text("forked_from_scene_id"),
     forkedFromVersion: integer("forked_from_version"),
+    /** Who wrote the origin version that was forked (kept even if the origin is deleted later). */
+    forkedFromAuthorId: text("forked_from_author_id").references(() => user.id, { onDelete: "set null" }),
     position: integer("position").notNull().default(0),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (table) => [index("scene_study_id_idx").on(table.studyId)],
+  (table) => [index("scene_study_id_idx").on(table.studyId), index("scene_forked_from_idx").on(table.forkedFromSceneId)],
 );
 export type Scene = typeof scene.$inferSelect;
 
@@ -238,6 +245,13 @@ export type SceneVersion = typeof sceneVersion.$inferSelect;
 export const runStatuses = ["queued", "running", "completed", "failed", "cancelled"] as const;
 export type RunStatus = (typeof runStatuses)[number];
 
+/**
+ * Where a run stands in review: nobody asked yet; an editor asked for review; a reviewer asked
+ * for a revision; a reviewer signed it off for use in a report. Transitions: lib/review.
+ */
+export const reviewStates = ["unreviewed", "awaiting_review", "revision_asked", "signed_off"] as const;
+export type ReviewState = (typeof reviewStates)[number];
+
 /** A run: a frozen copy of the scene and settings, and what the solver made of it. */
 export const run = pgTable(
   "run",
@@ -261,6 +275,8 @@ export const run = pgTable(
     /** Large result payload (traces, snapshots, level maps), compressed. */
     resultData: bytea("result_data"),
     resultBytes: integer("result_bytes").notNull().default(0),
+    /** The latest review decision (its history is in run_review). */
+    reviewState: text("review_state", { enum: reviewStates }).notNull().default("unreviewed"),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     startedAt: timestamp("started_at", { withTimezone: true }),
@@ -284,6 +300,12 @@ export const comment = pgTable(
     /** Optional place and time in the run the comment refers to ({ x, y, t } in m and s). */
     pin: jsonb("pin"),
     resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    resolvedBy: text("resolved_by").references(() => user.id, { onDelete: "set null" }),
+    /** Team members named with @ in the body, as user ids (they get an e-mail). */
+    mentions: jsonb("mentions").$type<string[]>().notNull().default([]),
+    editedAt: timestamp("edited_at", { withTimezone: true }),
+    /** A deleted comment keeps its place in the thread (replies stay readable) but not its text. */
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -341,3 +363,92 @@ export const studyBlock = pgTable(
   (table) => [index("study_block_study_id_idx").on(table.studyId, table.position)],
 );
 export type StudyBlock = typeof studyBlock.$inferSelect;
+
+/**
+ * Every review decision on a run, newest last. A sign-off records the run's input hash and the
+ * scene version it was run from, so a later change of the scene shows the sign-off as older.
+ */
+export const runReview = pgTable(
+  "run_review",
+  {
+    id: text("id").primaryKey(),
+    runId: text("run_id")
+      .notNull()
+      .references(() => run.id, { onDelete: "cascade" }),
+    fromState: text("from_state", { enum: reviewStates }).notNull(),
+    toState: text("to_state", { enum: reviewStates }).notNull(),
+    actorId: text("actor_id").references(() => user.id, { onDelete: "set null" }),
+    note: text("note").notNull().default(""),
+    runInputHash: text("run_input_hash").notNull(),
+    sceneVersion: integer("scene_version").notNull(),
+    createdAt: createdAt(),
+  },
+  (table) => [index("run_review_run_id_idx").on(table.runId, table.createdAt)],
+);
+export type RunReview = typeof runReview.$inferSelect;
+
+/** A read-only link to a study for people outside the team; the owner can revoke it. */
+export const studyShareLink = pgTable(
+  "study_share_link",
+  {
+    id: text("id").primaryKey(),
+    studyId: text("study_id")
+      .notNull()
+      .references(() => study.id, { onDelete: "cascade" }),
+    /** SHA-256 of the link's secret; the secret is shown once, when the link is made. */
+    tokenHash: text("token_hash").notNull(),
+    label: text("label").notNull().default(""),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    revokedBy: text("revoked_by").references(() => user.id, { onDelete: "set null" }),
+  },
+  (table) => [uniqueIndex("study_share_link_token_hash_uidx").on(table.tokenHash), index("study_share_link_study_id_idx").on(table.studyId)],
+);
+export type StudyShareLink = typeof studyShareLink.$inferSelect;
+
+export const mailKinds = ["invitation", "mention", "review_request", "review_decision"] as const;
+export type MailKind = (typeof mailKinds)[number];
+export const mailStatuses = ["kept", "sent", "failed"] as const;
+export type MailStatus = (typeof mailStatuses)[number];
+
+/**
+ * Every e-mail Rarefact writes. Without SMTP settings the message is only kept here ("kept") and
+ * team owners read it in the app; with SMTP it is also sent ("sent", or "failed" with the reason).
+ */
+export const mailMessage = pgTable(
+  "mail_message",
+  {
+    id: text("id").primaryKey(),
+    teamId: text("team_id").references(() => team.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: mailKinds }).notNull(),
+    toAddress: text("to_address").notNull(),
+    toUserId: text("to_user_id").references(() => user.id, { onDelete: "set null" }),
+    subject: text("subject").notNull(),
+    textBody: text("text_body").notNull(),
+    htmlBody: text("html_body"),
+    status: text("status", { enum: mailStatuses }).notNull(),
+    error: text("error").notNull().default(""),
+    createdAt: createdAt(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+  },
+  (table) => [index("mail_message_team_id_idx").on(table.teamId, table.createdAt)],
+);
+export type MailMessage = typeof mailMessage.$inferSelect;
+
+/** Who has a study open now: one row per open live-update connection, refreshed by heartbeats. */
+export const studyPresence = pgTable(
+  "study_presence",
+  {
+    id: text("id").primaryKey(),
+    studyId: text("study_id")
+      .notNull()
+      .references(() => study.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [index("study_presence_study_id_idx").on(table.studyId, table.lastSeenAt)],
+);
+export type StudyPresence = typeof studyPresence.$inferSelect;

@@ -3,6 +3,7 @@ import type { ActivityItem } from "@/lib/http/api-types";
 import { desc, eq } from "drizzle-orm";
 import { getDb } from "../client";
 import { activity, user } from "../schema";
+import { publishLiveEvent } from "./live-events";
 import { newId, withDatabaseErrors } from "./wrap";
 
 export interface ActivityInput {
@@ -13,21 +14,39 @@ export interface ActivityInput {
   subjectType: string;
   subjectId: string;
   detail?: Record<string, unknown>;
+  /** The run a comment or review concerns, so that the run's open page refreshes. */
+  runId?: string | null;
 }
 
+/** Records an activity and tells open pages about it (live updates are fed from the same record). */
 export async function recordActivity(input: ActivityInput): Promise<void> {
+  const id = newId();
+  const createdAt = new Date();
   await withDatabaseErrors("record the activity", async () => {
     const db = await getDb();
     await db.insert(activity).values({
-      id: newId(),
+      id,
       teamId: input.teamId,
       studyId: input.studyId ?? null,
       actorId: input.actorId,
       action: input.action,
       subjectType: input.subjectType,
       subjectId: input.subjectId,
-      detail: input.detail ?? {},
+      detail: { ...(input.detail ?? {}), ...(input.runId ? { runId: input.runId } : {}) },
+      createdAt,
     });
+  });
+  await publishLiveEvent({
+    kind: "activity",
+    id,
+    teamId: input.teamId,
+    studyId: input.studyId ?? null,
+    actorId: input.actorId,
+    action: input.action,
+    subjectType: input.subjectType,
+    subjectId: input.subjectId,
+    runId: input.runId ?? null,
+    at: createdAt.toISOString(),
   });
 }
 

@@ -14,22 +14,30 @@ export const teamActions = [
   "scene:edit",
   "run:create",
   "run:comment",
+  "run:request-review",
   "run:review",
+  "comment:moderate",
+  "study:share",
+  "team:read-mail",
 ] as const;
 export type TeamAction = (typeof teamActions)[number];
 
 const readOnly: TeamAction[] = ["team:read", "study:read"];
 
-/** role -> permitted actions. Reviewers comment and sign off but never edit what they review. */
+/**
+ * role -> permitted actions. Reviewers comment and sign off but never edit what they review.
+ * Authors edit and delete their own comments whatever their role; "comment:moderate" lets owners
+ * remove anyone's. Forking needs study:read on the origin and scene:edit where the fork goes.
+ */
 export const permissionsByRole: Record<TeamRole, ReadonlySet<TeamAction>> = {
   owner: new Set<TeamAction>(teamActions),
-  editor: new Set<TeamAction>([...readOnly, "study:create", "study:edit", "scene:edit", "run:create", "run:comment"]),
+  editor: new Set<TeamAction>([...readOnly, "study:create", "study:edit", "scene:edit", "run:create", "run:comment", "run:request-review"]),
   reviewer: new Set<TeamAction>([...readOnly, "run:comment", "run:review"]),
   viewer: new Set<TeamAction>(readOnly),
 };
 
 export const roleDescriptions: Record<TeamRole, string> = {
-  owner: "Manages members and can do everything an editor or reviewer can.",
+  owner: "Manages members, shares studies by link, reads the team's mailbox, and can do everything an editor or reviewer can.",
   editor: "Creates studies, edits scenes and runs simulations.",
   reviewer: "Reads everything, comments on runs and signs them off; cannot edit scenes.",
   viewer: "Reads studies, scenes and runs.",

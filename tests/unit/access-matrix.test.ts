@@ -15,7 +15,11 @@ const expected: Record<TeamAction, string> = {
   "scene:edit":           "y     y      -        -",
   "run:create":           "y     y      -        -",
   "run:comment":          "y     y      y        -",
+  "run:request-review":   "y     y      -        -",
   "run:review":           "y     -      y        -",
+  "comment:moderate":     "y     -      -        -",
+  "study:share":          "y     -      -        -",
+  "team:read-mail":       "y     -      -        -",
 };
 
 function expectedFor(role: TeamRole, action: TeamAction): "allow" | "forbidden" {
