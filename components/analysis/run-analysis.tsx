@@ -4,6 +4,7 @@
 // beside it, the sound of a receiver, and exports of each. Every piece is also exported on its own.
 import { useMemo, useState } from "react";
 
+import { useRevealPinnedReceiver } from "@/components/comments/pin-context";
 import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { useStudyRuns } from "@/lib/client/run-queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
@@ -71,6 +72,9 @@ export function sceneFacts(run: DecodedRun): SceneFacts {
 export function RunAnalysis({ runId, studyId, record, run, canCreate }: RunAnalysisProps) {
   const facts = useMemo(() => sceneFacts(run), [run]);
   const [receiverIds, setReceiverIds] = useState<string[]>(() => run.receivers.slice(0, 3).map((receiver) => receiver.id));
+  const allReceiverIds = useMemo(() => run.receivers.map((receiver) => receiver.id), [run]);
+  // A comment pinned to a receiver not drawn yet: jumping to it adds the receiver (saved run page only).
+  useRevealPinnedReceiver(receiverIds, setReceiverIds, allReceiverIds);
   const [overlayIds, setOverlayIds] = useState<string[]>([]);
   const runs = useStudyRuns(studyId);
   const labels = useMemo(() => new Map((runs.data?.runs ?? []).map((item) => [item.id, runLabel(item)])), [runs.data]);

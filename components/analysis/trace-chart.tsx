@@ -6,6 +6,7 @@ import { useMemo, useRef } from "react";
 import type uPlot from "uplot";
 
 import { UPlotChart, type ChartSeries } from "@/components/charts/uplot-chart";
+import { useTracePinLayer } from "@/components/comments/trace-pin-layer";
 import { tracesCsv } from "@/lib/analysis/csv";
 
 import { ExportButton, Note } from "./analysis-controls";
@@ -39,12 +40,22 @@ export function TraceChart({ traces, runId, height = 240 }: TraceChartProps) {
   const box = useRef<HTMLDivElement>(null);
   const data = useMemo(() => (traces.length > 0 ? alignedData(traces) : null), [traces]);
   const series = useMemo<ChartSeries[]>(() => traces.map((trace) => ({ label: trace.label, colour: trace.colour, width: 1.25, ...(trace.dash ? { dash: trace.dash } : {}) })), [traces]);
+  // Comment pins: only on the saved run page (its pin board); nothing elsewhere.
+  const pins = useTracePinLayer({ traces, runId });
 
-  if (!data) return <Note>Choose at least one receiver to draw its pressure.</Note>;
+  if (!data) {
+    return (
+      <div className="flex flex-col gap-2">
+        {pins.banner}
+        <Note>Choose at least one receiver to draw its pressure.</Note>
+      </div>
+    );
+  }
   const timeStep = traces[0]!.timeStep;
   return (
     <div className="flex flex-col gap-2" ref={box}>
-      <UPlotChart data={data} series={series} x={{ label: "Time", unit: "ms" }} y={{ label: "Sound pressure", unit: "Pa" }} height={height} zoomX ariaLabel={`Pressure over time at ${traces.map((t) => t.label).join(", ")}`} />
+      {pins.banner}
+      <UPlotChart data={data} series={series} x={{ label: "Time", unit: "ms" }} y={{ label: "Sound pressure", unit: "Pa" }} height={height} zoomX ariaLabel={`Pressure over time at ${traces.map((t) => t.label).join(", ")}`} onPlot={pins.onPlot} />
       <div className="flex flex-wrap items-center justify-between gap-2">
         <Note>Drag across the chart to zoom in time; double-click to zoom out. Sampled every {(timeStep * 1e6).toPrecision(4)} µs ({(1 / timeStep / 1000).toPrecision(4)} kHz).</Note>
         <div className="flex gap-2">

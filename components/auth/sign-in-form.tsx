@@ -38,7 +38,7 @@ export function SignInForm({ nextPath }: { nextPath: string }) {
       </Button>
       <p className="text-center text-sm text-muted">
         New to Rarefact?{" "}
-        <Link href="/sign-up" className="font-medium text-tide-600 underline-offset-2 hover:underline">
+        <Link href={nextPath === "/dashboard" ? "/sign-up" : `/sign-up?next=${encodeURIComponent(nextPath)}`} className="font-medium text-tide-600 underline-offset-2 hover:underline">
           Create an account
         </Link>
       </p>

@@ -12,9 +12,9 @@ import { signUpSchema, type SignUpInput } from "@/lib/validation/account";
 import { minimumPasswordLength } from "@/lib/validation/password-policy";
 import { authErrorToField } from "./auth-errors";
 
-export function SignUpForm() {
+export function SignUpForm({ nextPath = "/dashboard", initialEmail = "" }: { nextPath?: string; initialEmail?: string }) {
   const router = useRouter();
-  const form = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema), defaultValues: { name: "", email: "", password: "" } });
+  const form = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema), defaultValues: { name: "", email: initialEmail, password: "" } });
   const { errors, isSubmitting } = form.formState;
   const hydrated = useHydrated();
 
@@ -25,7 +25,7 @@ export function SignUpForm() {
       form.setError(field, { message });
       return;
     }
-    router.replace("/dashboard");
+    router.replace(nextPath);
     router.refresh();
   });
 
@@ -48,7 +48,7 @@ export function SignUpForm() {
       </Button>
       <p className="text-center text-sm text-muted">
         Already have an account?{" "}
-        <Link href="/sign-in" className="font-medium text-tide-600 underline-offset-2 hover:underline">
+        <Link href={nextPath === "/dashboard" ? "/sign-in" : `/sign-in?next=${encodeURIComponent(nextPath)}`} className="font-medium text-tide-600 underline-offset-2 hover:underline">
           Sign in
         </Link>
       </p>

@@ -53,6 +53,8 @@ export interface UPlotChartProps {
   /** What the chart shows, for people who cannot see it. */
   ariaLabel: string;
   className?: string;
+  /** Told of the uPlot instance after each build (and null when it is destroyed), for extra drawing and clicks. */
+  onPlot?: (plot: uPlot | null) => void;
 }
 
 const MUTED = "#66717c";
@@ -139,11 +141,15 @@ function buildOptions(props: { series: readonly ChartSeries[]; x: ChartAxis; y: 
   };
 }
 
-function UPlotChartInner({ data, series, x, y, shadedX = NO_SHADING, height = 160, legend = true, zoomX = false, ariaLabel, className = "" }: UPlotChartProps) {
+function UPlotChartInner({ data, series, x, y, shadedX = NO_SHADING, height = 160, legend = true, zoomX = false, ariaLabel, className = "", onPlot }: UPlotChartProps) {
   const container = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const latestData = useRef(data);
   const shading = useRef<readonly ShadedRange[]>(shadedX);
+  const onPlotRef = useRef(onPlot);
+  useEffect(() => {
+    onPlotRef.current = onPlot;
+  }, [onPlot]);
 
   // Callers build their series and axes inline: rebuild the plot only when what they say changes
   // (everything in them is plain JSON, so the text stands for the content).
@@ -156,6 +162,7 @@ function UPlotChartInner({ data, series, x, y, shadedX = NO_SHADING, height = 16
     const font = getComputedStyle(element).fontFamily || "monospace";
     const created = new uPlot(buildOptions(shape, Math.max(1, element.clientWidth), font, shading), latestData.current, element);
     plot.current = created;
+    onPlotRef.current?.(created);
     const observer = new ResizeObserver(([entry]) => {
       const width = Math.floor(entry?.contentRect.width ?? 0);
       if (width > 0 && width !== created.width) created.setSize({ width, height: shape.height });
@@ -169,6 +176,7 @@ function UPlotChartInner({ data, series, x, y, shadedX = NO_SHADING, height = 16
       observer.disconnect();
       created.destroy();
       plot.current = null;
+      onPlotRef.current?.(null);
     };
   }, [shape]);
 

@@ -23,6 +23,7 @@ import {
   type FieldViewMode,
 } from "./field-display";
 import { OVERLAY_COLOURS, renderFieldOverlay } from "./field-overlay";
+import { FieldMarkers, type FieldMarker } from "./field-markers";
 import { createWebGlFieldRenderer, type FieldRenderer } from "./field-renderer";
 import { cellsPerArrowFor, intensityArrows } from "./intensity-arrows";
 import { createRangeScratch, levelDifferenceSnapshot, levelSnapshot, sampleField } from "./levels";
@@ -63,7 +64,17 @@ export interface FieldViewProps {
   /** "auto" picks WebGL with float textures where possible; the others force a path (for the harness and tests). */
   renderer?: "auto" | "webgl-bytes" | "canvas-2d";
   ref?: Ref<FieldViewHandle>;
+  /** Numbered markers in scene metres (comment pins); none by default. */
+  markers?: readonly FieldMarker[];
+  /** The marker drawn larger (the one just jumped to); flashKey makes it flash again. */
+  emphasisedMarkerId?: string | null;
+  flashKey?: number;
+  onMarkerSelect?: (id: string) => void;
+  /** When set, a click on the plot hands back the scene point under it, m (pin mode). */
+  onPickPoint?: (point: { x: number; y: number }) => void;
 }
+
+const NO_MARKERS: readonly FieldMarker[] = [];
 
 const FALLBACK_MESSAGE = "WebGL is not available in this browser: showing a static image";
 
@@ -92,6 +103,11 @@ function FieldViewComponent({
   className = "",
   renderer: rendererChoice = "auto",
   ref,
+  markers = NO_MARKERS,
+  emphasisedMarkerId = null,
+  flashKey,
+  onMarkerSelect,
+  onPickPoint,
 }: FieldViewProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const fieldCanvasRef = useRef<HTMLCanvasElement>(null);
@@ -297,14 +313,15 @@ function FieldViewComponent({
     [],
   );
 
-  const onPointerMove = (event: ReactPointerEvent<HTMLCanvasElement>) => {
-    if (!layout) return;
+  const pointAt = (event: ReactPointerEvent<HTMLCanvasElement>) => {
+    if (!layout) return null;
     const box = event.currentTarget.getBoundingClientRect();
     const cssX = event.clientX - box.left;
     const cssY = event.clientY - box.top;
     const inside = cssX >= layout.plot.x && cssX <= layout.plot.x + layout.plot.width && cssY >= layout.plot.y && cssY <= layout.plot.y + layout.plot.height;
-    setHover(inside ? toWorld(layout, cssX, cssY) : null);
+    return inside ? toWorld(layout, cssX, cssY) : null;
   };
+  const onPointerMove = (event: ReactPointerEvent<HTMLCanvasElement>) => setHover(pointAt(event));
 
   const readout = hover ? readoutAt({ mode, field, levelMaps, comparison, differenceOf }, hover.x, hover.y) : null;
 
@@ -334,8 +351,17 @@ function FieldViewComponent({
           className="absolute inset-0 block h-full w-full cursor-crosshair font-sans"
           onPointerMove={onPointerMove}
           onPointerLeave={() => setHover(null)}
+          onPointerUp={
+            onPickPoint
+              ? (event) => {
+                  const point = pointAt(event);
+                  if (point) onPickPoint(point);
+                }
+              : undefined
+          }
           aria-hidden
         />
+        {layout && markers.length > 0 ? <FieldMarkers layout={layout} outer={extent.outer} markers={markers} emphasisedId={emphasisedMarkerId} flashKey={flashKey} onSelect={onMarkerSelect} /> : null}
         {result.kind === "empty" && layout ? (
           <div
             className="pointer-events-none absolute flex items-center justify-center p-4 text-center text-sm text-muted"

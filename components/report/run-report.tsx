@@ -16,7 +16,8 @@ import { parseScene, type Scene } from "@/lib/fdtd/scene";
 import type { RunRecord, StudyRecord } from "@/lib/http/api-types";
 import type { DecodedRun } from "@/lib/run-record/payload";
 import { bandHeading } from "@/components/sweeps/model/sweep-table";
-import { referenceCandidates, reviewOf, runBandLevels, runInsertionLoss, settingsRows, treatmentRows } from "./model/report-model";
+import { ReportReviewBlock, reportReviewSentence } from "@/components/review/report-review-block";
+import { referenceCandidates, runBandLevels, runInsertionLoss, settingsRows, treatmentRows } from "./model/report-model";
 import { SceneFigure, SceneFigureKey } from "./scene-figure";
 
 /** Receivers listed in the level tables at most; a long receiver line is cut short with a note. */
@@ -210,7 +211,6 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
   const bandLevels = useMemo(() => runBandLevels(decoded, grid.maxResolvedFrequency), [decoded, grid.maxResolvedFrequency]);
   const treatments = treatmentRows(scene);
   const summary = run.summary;
-  const review = reviewOf(run);
   const header = decoded.header;
   const warnings = summary?.warnings ?? header.warnings;
   const receiverSummaries = new Map((summary?.receivers ?? []).map((r) => [r.id, r]));
@@ -331,9 +331,9 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
             ["Run by", `${run.createdByName ?? "a former member"}, ${when(run.createdAt)}`],
             ["Scene", `${run.sceneName ?? scene.name ?? "deleted scene"}, version ${run.sceneVersion}`],
             ["Run id", run.id],
-            ["Review", review ? `${review.status}${review.reviewerName ? ` by ${review.reviewerName}` : ""}${review.reviewedAt ? `, ${when(review.reviewedAt)}` : ""}${review.note ? `: ${review.note}` : ""}` : "Not yet reviewed"],
           ]}
         />
+        <ReportReviewBlock run={run} />
       </Section>
     </>
   );
@@ -381,7 +381,7 @@ export function RunReport({ studyId, runId }: { studyId: string; runId: string }
         {run.data ? (
           <p className="text-sm text-muted">
             {run.data.run.sceneName ?? "Deleted scene"} (version {run.data.run.sceneVersion}), run {when(run.data.run.createdAt)}
-            {run.data.run.createdByName ? ` by ${run.data.run.createdByName}` : ""}. {reviewOf(run.data.run) ? "" : "Not yet reviewed."}
+            {run.data.run.createdByName ? ` by ${run.data.run.createdByName}` : ""}. {reportReviewSentence(run.data.run)}
           </p>
         ) : null}
       </div>

@@ -1,6 +1,8 @@
 // The study's run table without React: one row per saved run in the table's own words, the text
 // and status filter, and the figures formatted once, so sorting compares numbers, not labels.
 import type { RunListItem, RunStatusName } from "@/lib/http/api-types";
+import type { ReviewStateName } from "@/lib/review/review-states";
+import { signOffStanding } from "@/lib/review/sign-off-standing";
 
 export interface RunTableRow {
   id: string;
@@ -20,10 +22,20 @@ export interface RunTableRow {
   warningCount: number | null;
   /** Largest receiver peak level, dB re 20 µPa; null when every receiver is silent or none was recorded. */
   loudestPeakLevelDb: number | null;
+  reviewState: ReviewStateName;
+  /** Signed off, but for a scene version older than the scene's current one (or a deleted scene). */
+  signOffIsOlder: boolean;
+  /** Who signed it off, when it is signed off. */
+  signedOffBy: string | null;
+  /** Sorts by how far the run is on its way to a sign-off that still holds. */
+  reviewRank: number;
 }
+
+const reviewRanks: Record<ReviewStateName, number> = { unreviewed: 0, revision_asked: 1, awaiting_review: 2, signed_off: 4 };
 
 export function toRunTableRow(item: RunListItem): RunTableRow {
   const sceneName = item.sceneName ?? "Deleted scene";
+  const signOffIsOlder = item.signOff !== null && signOffStanding({ signedVersion: item.signOff.sceneVersion, sceneCurrentVersion: item.sceneCurrentVersion }).kind !== "current";
   return {
     id: item.id,
     sceneName,
@@ -38,15 +50,22 @@ export function toRunTableRow(item: RunListItem): RunTableRow {
     cellSize: item.figures?.grid.cellSize ?? null,
     warningCount: item.figures?.warningCount ?? null,
     loudestPeakLevelDb: item.figures?.loudestPeakLevelDb ?? null,
+    reviewState: item.reviewState,
+    signOffIsOlder,
+    signedOffBy: item.signOff ? (item.signOff.signedOffByName ?? "a former member") : null,
+    reviewRank: reviewRanks[item.reviewState] - (signOffIsOlder ? 1 : 0),
   };
 }
 
 export type RunStatusFilter = RunStatusName | "all";
+export type RunReviewFilter = ReviewStateName | "all";
 
 export interface RunTableFilter {
   /** Matched, case and accents aside, against the variant and who ran it; every word must match. */
   text: string;
   status: RunStatusFilter;
+  /** Absent means every review state. */
+  review?: RunReviewFilter;
 }
 
 function folded(text: string): string {
@@ -55,6 +74,7 @@ function folded(text: string): string {
 
 export function matchesRunFilter(row: RunTableRow, filter: RunTableFilter): boolean {
   if (filter.status !== "all" && row.status !== filter.status) return false;
+  if (filter.review !== undefined && filter.review !== "all" && row.reviewState !== filter.review) return false;
   const words = folded(filter.text).split(/\s+/).filter(Boolean);
   if (words.length === 0) return true;
   const haystack = folded(`${row.variant} ${row.who}`);

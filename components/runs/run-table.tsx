@@ -1,6 +1,6 @@
 "use client";
 // The study's saved runs as a table: sortable by any column header, filtered by text (variant or
-// who ran it) and by status; each row opens its saved run.
+// who ran it), by status and by review state; each row opens its saved run.
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import {
@@ -12,8 +12,10 @@ import {
   useReactTable,
   type SortingState,
 } from "@tanstack/react-table";
+import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { formatWhen } from "@/lib/client/format";
 import type { RunListItem } from "@/lib/http/api-types";
+import { reviewStateLabels } from "@/lib/review/review-states";
 import { RunStatusBadge } from "./run-status-badge";
 import {
   formatGrid,
@@ -22,6 +24,7 @@ import {
   matchesRunFilter,
   runStatusLabels,
   toRunTableRow,
+  type RunReviewFilter,
   type RunStatusFilter,
   type RunTableFilter,
   type RunTableRow,
@@ -46,7 +49,7 @@ function figureColumn(key: FigureKey, header: string, format: (row: RunTableRow)
 export function RunTable({ runs, studyId }: { runs: RunListItem[]; studyId: string }) {
   const rows = useMemo(() => runs.map(toRunTableRow), [runs]);
   const [sorting, setSorting] = useState<SortingState>([{ id: "createdAt", desc: true }]);
-  const [filter, setFilter] = useState<RunTableFilter>({ text: "", status: "all" });
+  const [filter, setFilter] = useState<RunTableFilter>({ text: "", status: "all", review: "all" });
   const href = (row: RunTableRow) => `/studies/${studyId}/runs/${row.id}`;
 
   const columns = useMemo(
@@ -60,6 +63,18 @@ export function RunTable({ runs, studyId }: { runs: RunListItem[]; studyId: stri
         ),
       }),
       column.accessor("status", { header: "Status", cell: (info) => <RunStatusBadge status={info.getValue()} /> }),
+      column.accessor("reviewRank", {
+        id: "review",
+        header: "Review",
+        cell: (info) => {
+          const row = info.row.original;
+          return (
+            <span title={row.signedOffBy ? `Signed off by ${row.signedOffBy}${row.signOffIsOlder ? ", for an older version of the scene" : ""}` : undefined}>
+              <ReviewStateBadge state={row.reviewState} older={row.signOffIsOlder} />
+            </span>
+          );
+        },
+      }),
       column.accessor("who", { header: "Who" }),
       column.accessor("createdAtMs", {
         id: "createdAt",
@@ -132,6 +147,21 @@ export function RunTable({ runs, studyId }: { runs: RunListItem[]; studyId: stri
           >
             <option value="all">All</option>
             {Object.entries(runStatusLabels).map(([value, label]) => (
+              <option key={value} value={value}>
+                {label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 text-sm text-ink-soft">
+          Review
+          <select
+            value={filter.review ?? "all"}
+            onChange={(event) => setFilter((previous) => ({ ...previous, review: event.target.value as RunReviewFilter }))}
+            className="h-8 rounded-md border border-rule-strong bg-panel px-2 text-sm text-ink"
+          >
+            <option value="all">All</option>
+            {Object.entries(reviewStateLabels).map(([value, label]) => (
               <option key={value} value={value}>
                 {label}
               </option>

@@ -6,6 +6,11 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo } from "react";
 import { RunAnalysis } from "@/components/analysis/run-analysis";
+import { StudyLiveStrip } from "@/components/live/study-live-strip";
+import { RunDiscussionSection } from "@/components/comments/run-discussion";
+import { ReviewPanel } from "@/components/review/review-panel";
+import { ReviewStateBadge } from "@/components/review/review-state-badge";
+import { signOffIsOlder } from "@/components/review/sign-off-facts";
 import { RunStatusBadge } from "@/components/runs/run-status-badge";
 import { formatWallTime } from "@/components/runs/run-table-model";
 import { formatBytes } from "@/components/scenes/grid-figures";
@@ -19,6 +24,7 @@ import { mayDeleteRun } from "@/lib/access/run-deletion";
 import { roleAllows } from "@/lib/access/roles";
 import { formatWhen } from "@/lib/client/format";
 import { useRun, useSavedRunPayload } from "@/lib/client/run-queries";
+import { useStudyLiveUpdates } from "@/lib/client/use-live-updates";
 import { parseScene } from "@/lib/fdtd/scene";
 import type { RunRecord } from "@/lib/http/api-types";
 import type { DecodedRun } from "@/lib/run-record/payload";
@@ -30,6 +36,8 @@ import { SavedRunFigures } from "./saved-run-figures";
 export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; runId: string; callerId: string }) {
   const query = useRun(runId);
   const payload = useSavedRunPayload(query.data ? runId : null);
+  // Live: comments, reviews and the record refresh when a colleague acts (the payload is never refetched).
+  const live = useStudyLiveUpdates(studyId, { enabled: !query.isError });
 
   if (query.isPending) return <LoadingRows label="Loading the run" />;
   if (query.isError) return <LoadFailure subject="run" error={query.error} onRetry={() => void query.refetch()} back={{ href: `/studies/${studyId}`, label: "Back to the study" }} />;
@@ -38,6 +46,7 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
   return (
     <div className="flex flex-col gap-6">
       <SavedRunHeader run={run} role={role} callerId={callerId} />
+      <StudyLiveStrip studyId={studyId} live={live} />
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex min-w-0 flex-col gap-6">
           <section aria-labelledby="field-heading" className="flex flex-col gap-3">
@@ -57,6 +66,7 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
           {payload.data ? <RerunCheck saved={payload.data} /> : null}
         </div>
         <aside className="flex flex-col gap-6">
+          <ReviewPanel run={run} role={role} callerId={callerId} />
           <section aria-labelledby="figures-heading" className="flex flex-col gap-3">
             <h2 id="figures-heading" className="text-base font-semibold text-ink">
               Grid and figures
@@ -88,6 +98,7 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
           <LoadingRows rows={2} label="Loading the traces" />
         )}
       </section>
+      <RunDiscussionSection run={run} role={role} callerId={callerId} />
     </div>
   );
 }
@@ -124,6 +135,7 @@ function SavedRunHeader({ run, role, callerId }: { run: RunRecord; role: Paramet
           {run.sceneName ?? "Deleted scene"} <span className="font-normal text-muted">version {run.sceneVersion}</span>
         </h1>
         <RunStatusBadge status={run.status} />
+        <ReviewStateBadge state={run.reviewState} older={signOffIsOlder(run)} />
         <RoleBadge role={role} />
         <div className="ml-auto flex items-center gap-2">
           <Link href={`/studies/${run.studyId}/runs/${run.id}/report`} className="text-sm font-medium text-tide-700 hover:underline">

@@ -2,7 +2,9 @@
 // The pressure field of a run: live while it steps, then replayable over its snapshots with a time
 // scrubber, and switchable to the level maps once the run has finished. FieldReplay shows any
 // result-like object (a live run's result or a saved run read back); RunViewer feeds it a live run.
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useFieldPins } from "@/components/comments/pin-context";
+import { formatPin, roundPickedPin } from "@/components/comments/pin-format";
 import { sameGrid, useSessionRuns } from "@/components/run/session-runs";
 import type { BrowserRunState } from "@/components/run/use-browser-run";
 import { FieldView, type FieldRange, type FieldViewHandle, type FieldViewMode } from "@/components/field-view/field-view";
@@ -45,6 +47,67 @@ export function RunViewer({ scene, sceneId, state }: { scene: Scene; sceneId: st
   return <FieldReplay scene={scene} result={result} liveFrame={state.frame} references={references} noReferenceReason="Run the reference scene (same grid) in this tab first" />;
 }
 
+/**
+ * Comment pins on the replay (only inside the saved run page's pin board): markers in metres, a jump
+ * to the snapshot nearest a pin's time, and pin mode, where a click on the domain makes a pin at the
+ * shown time. Null elsewhere, so other pages draw no pins.
+ */
+function useReplayPins({ scene, frames, shownTime, showFrame }: { scene: Scene; frames: readonly FieldSnapshot[]; shownTime: number; showFrame: (index: number) => void }) {
+  const board = useFieldPins();
+  const viewBox = useRef<HTMLDivElement>(null);
+  const [expiredNonce, setExpiredNonce] = useState<number | null>(null);
+  const [outside, setOutside] = useState(false);
+  const markers = useMemo(
+    () => (board?.pins ?? []).map((placed) => ({ id: placed.commentId, label: String(placed.number), x: placed.pin.x, y: placed.pin.y, title: `${placed.title} (${formatPin(placed.pin)})`, muted: placed.resolved })),
+    [board?.pins],
+  );
+
+  // A chip asked for this pin: show the nearest stored snapshot, bring the view into sight, flash the marker.
+  const focus = board?.focus ?? null;
+  // Primitives only: the board hands out a new object whenever anything on it changes.
+  const focusNonce = focus?.nonce;
+  const focusTime = focus?.placed.pin.t;
+  useEffect(() => {
+    if (focusNonce === undefined || focusTime === undefined || frames.length === 0) return;
+    let nearest = 0;
+    frames.forEach((frame, index) => {
+      if (Math.abs(frame.time - focusTime) < Math.abs(frames[nearest]!.time - focusTime)) nearest = index;
+    });
+    showFrame(nearest);
+    viewBox.current?.scrollIntoView({ behavior: "smooth", block: "center" });
+    const timer = setTimeout(() => setExpiredNonce(focusNonce), 3000);
+    return () => clearTimeout(timer);
+  }, [focusNonce, focusTime, frames, showFrame]);
+  const emphasis = focus && focus.nonce !== expiredNonce ? { id: focus.placed.commentId, key: focus.nonce } : null;
+
+  if (!board) return null;
+  const picking = board.picking;
+  return {
+    viewBox,
+    viewProps: {
+      markers,
+      emphasisedMarkerId: emphasis?.id ?? null,
+      flashKey: emphasis?.key,
+      onMarkerSelect: board.selectComment,
+      onPickPoint: picking
+        ? (point: { x: number; y: number }) => {
+            const inside = point.x >= 0 && point.x <= scene.domain.width && point.y >= 0 && point.y <= scene.domain.height;
+            setOutside(!inside);
+            if (inside) board.pick(roundPickedPin({ kind: "field", x: point.x, y: point.y, t: shownTime }));
+          }
+        : undefined,
+    },
+    banner: picking ? (
+      <p role="status" className="flex flex-wrap items-center gap-3 rounded-md border border-ember-100 bg-ember-50 px-3 py-2 text-sm text-ember-700" data-testid="field-pin-mode">
+        {outside ? "That point is outside the domain (the PML bands are not part of it)." : `Click a point in the domain to pin your comment there at t = ${(shownTime * 1000).toFixed(2)} ms; move the time slider first to pin another moment.`}
+        <button type="button" onClick={board.stopPicking} className="ml-auto font-medium underline underline-offset-2">
+          Stop pinning
+        </button>
+      </p>
+    ) : null,
+  };
+}
+
 export function FieldReplay({
   scene,
   result,
@@ -72,6 +135,12 @@ export function FieldReplay({
   const lastIndex = frames.length - 1;
   const shownIndex = frameIndex ?? lastIndex;
   const field = result ? (frames[shownIndex] ?? null) : liveFrame;
+  const showFrame = useCallback((index: number) => {
+    setPlaying(false);
+    setMode("pressure");
+    setFrameIndex(index);
+  }, []);
+  const pins = useReplayPins({ scene, frames, shownTime: frames[shownIndex]?.time ?? 0, showFrame });
 
   // Playback: one snapshot per animation frame, from the start when at the end.
   useEffect(() => {
@@ -108,8 +177,10 @@ export function FieldReplay({
           if (blob) downloadBlob(blob, `${(scene.name || "scene").replace(/[^\w.-]+/g, "-")}-${mode}.png`);
         }}
       />
-      <div data-testid="field-view">
+      {pins?.banner}
+      <div data-testid="field-view" ref={pins?.viewBox}>
         <FieldView
+          {...pins?.viewProps}
           ref={view}
           scene={scene}
           field={field}

@@ -27,6 +27,18 @@ export function SceneEditPanel({
   const client = useQueryClient();
   const router = useRouter();
   const [draft, setDraft] = useState<Scene | null>(null);
+  // The version the draft was started from. The record may be refetched meanwhile (window focus,
+  // live updates); saving against the refetched version would overwrite a colleague's newer one
+  // without the 409 that offers the user a choice.
+  const [draftBaseVersion, setDraftBaseVersion] = useState<number | null>(null);
+  const editDraft = (next: Scene) => {
+    setDraftBaseVersion((base) => base ?? record.version);
+    setDraft(next);
+  };
+  const dropDraft = () => {
+    setDraft(null);
+    setDraftBaseVersion(null);
+  };
   const [note, setNote] = useState("");
   const [state, setState] = useState<"editing" | "saving" | "conflict">("editing");
   const [failure, setFailure] = useState<string | null>(null);
@@ -48,10 +60,10 @@ export function SceneEditPanel({
     try {
       await fetchJson(`/api/scenes/${record.id}`, {
         method: "PUT",
-        json: { baseVersion: record.version, name: record.name, description: record.description, data: draft, note },
+        json: { baseVersion: draftBaseVersion ?? record.version, name: record.name, description: record.description, data: draft, note },
       });
       await refresh();
-      setDraft(null);
+      dropDraft();
       setNote("");
       setState("editing");
     } catch (error) {
@@ -97,7 +109,7 @@ export function SceneEditPanel({
       {state === "conflict" ? (
         <div role="alert" className="flex flex-wrap items-center gap-3 rounded-md border border-signal-error/30 bg-signal-error-50 px-3 py-2 text-sm">
           <span className="text-ink-soft">Someone saved a newer version while you edited. Your changes are kept here.</span>
-          <Button size="sm" variant="secondary" onClick={async () => { setDraft(null); setState("editing"); await refresh(); }}>
+          <Button size="sm" variant="secondary" onClick={async () => { dropDraft(); setState("editing"); await refresh(); }}>
             Load the latest (drop mine)
           </Button>
           <Button size="sm" onClick={keepAsVariant}>
@@ -108,7 +120,7 @@ export function SceneEditPanel({
       {failure ? <ErrorState title="The scene was not saved" message={failure} /> : null}
       {/* A fixed height, most of the window: the canvas keeps its size and the inspector scrolls inside it. */}
       <div className="h-[max(560px,calc(100dvh_-_16rem))]">
-        <SceneEditor scene={draft ?? (record.data as Scene)} onChange={setDraft} readOnly={!canEdit} />
+        <SceneEditor scene={draft ?? (record.data as Scene)} onChange={editDraft} readOnly={!canEdit} />
       </div>
     </div>
   );

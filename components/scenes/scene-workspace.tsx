@@ -2,6 +2,9 @@
 // One scene: what it is, what grid it implies, and running it in this browser with the field
 // shown live and, afterwards, replayable over the snapshots.
 import { useEffect, useMemo, useState } from "react";
+import { ForkActions } from "@/components/forks/fork-actions";
+import { LineagePanel } from "@/components/forks/lineage-panel";
+import { StudyLiveStrip } from "@/components/live/study-live-strip";
 import { RunPanel } from "@/components/run/run-panel";
 import { rememberSessionRun } from "@/components/run/session-runs";
 import { useBrowserRun } from "@/components/run/use-browser-run";
@@ -13,6 +16,7 @@ import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { roleAllows } from "@/lib/access/roles";
 import { formatWhen } from "@/lib/client/format";
 import { useScene } from "@/lib/client/queries";
+import { useStudyLiveUpdates } from "@/lib/client/use-live-updates";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene } from "@/lib/fdtd/scene";
 import { GridFigures } from "./grid-figures";
@@ -23,10 +27,12 @@ import { SceneEditPanel } from "./scene-edit-panel";
 export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId: string }) {
   const query = useScene(sceneId);
   const run = useBrowserRun();
-  const [view, setView] = useState<"run" | "edit" | "history">("run");
+  const [view, setView] = useState<"run" | "edit" | "history" | "lineage">("run");
   // The editor stays mounted once opened (hidden on the other tabs), so a draft survives a look at the history.
   const [editorOpened, setEditorOpened] = useState(false);
   const [unsavedEdits, setUnsavedEdits] = useState(false);
+  // Live: a colleague's save refreshes this scene, except while the editor holds a draft (see the hook).
+  const live = useStudyLiveUpdates(studyId, { sceneWithUnsavedEdits: unsavedEdits ? sceneId : null, enabled: !query.isError });
   const parsed = useMemo(() => (query.data ? parseScene(query.data.scene.data) : null), [query.data]);
   const grid = useMemo(() => (parsed?.ok ? deriveGrid(parsed.scene) : null), [parsed]);
   const finished = run.state.phase === "finished" ? run.state.result : null;
@@ -56,8 +62,14 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
           <span className="text-sm text-muted">
             Version {current.version} · {current.updatedByName ?? "someone"}, {formatWhen(current.updatedAt)}
           </span>
+          <div className="ml-auto">
+            <ForkActions scene={current} />
+          </div>
         </div>
         {current.description ? <p className="mt-2 max-w-3xl text-[15px] text-ink-soft">{current.description}</p> : null}
+        <div className="mt-3">
+          <StudyLiveStrip studyId={studyId} live={live} />
+        </div>
       </div>
 
       {parsed && !parsed.ok ? (
@@ -65,7 +77,7 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
       ) : null}
 
       <div role="tablist" aria-label="Scene views" className="flex gap-1 border-b border-rule">
-        {(["run", "edit", "history"] as const).map((tab) => (
+        {(["run", "edit", "history", "lineage"] as const).map((tab) => (
           <button
             key={tab}
             type="button"
@@ -77,7 +89,7 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
             }}
             className={`-mb-px border-b-2 px-4 py-2 text-sm font-medium transition ${view === tab ? "border-tide-600 text-ink" : "border-transparent text-muted hover:text-ink"}`}
           >
-            {tab === "run" ? "Run and results" : tab === "history" ? "History" : roleAllows(role, "scene:edit") ? "Edit scene" : "Scene details"}
+            {tab === "run" ? "Run and results" : tab === "history" ? "History" : tab === "lineage" ? "Lineage" : roleAllows(role, "scene:edit") ? "Edit scene" : "Scene details"}
           </button>
         ))}
       </div>
@@ -88,6 +100,7 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
         </div>
       ) : null}
       {view === "history" ? <SceneHistory record={current} role={role} hasUnsavedEdits={unsavedEdits} /> : null}
+      {view === "lineage" ? <LineagePanel sceneId={current.id} studyId={current.studyId} /> : null}
 
       {view === "run" && parsed?.ok && grid ? (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">

@@ -2,6 +2,7 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { Wordmark } from "@/components/brand/logo";
+import { TeamNavLink } from "@/components/team/team-nav-link";
 import { TeamSwitcher } from "./team-switcher";
 
 function initials(name: string): string {
@@ -37,6 +38,7 @@ export function AppHeader({ userName, userEmail }: { userName: string; userEmail
               </Link>
             );
           })}
+          <TeamNavLink />
         </nav>
         <div className="ml-auto flex items-center gap-4">
           <TeamSwitcher />

@@ -1,54 +1,26 @@
 "use client";
+import Link from "next/link";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { LoadFailure } from "@/components/ui/load-failure";
 import { LoadingRows } from "@/components/ui/states";
-import { formatWhen } from "@/lib/client/format";
 import { useStudy } from "@/lib/client/queries";
-import type { ActivityItem } from "@/lib/http/api-types";
+import { useStudyLiveUpdates } from "@/lib/client/use-live-updates";
+import { StudyActivityPanel } from "@/components/activity/study-activity-panel";
+import { StudyLiveStrip } from "@/components/live/study-live-strip";
 import { RoleBadge } from "./role-badge";
 import { StudyNotebook } from "@/components/notebook/study-notebook";
 import { StudyRuns } from "@/components/runs/study-runs";
-
-const activityVerbs: Record<string, string> = {
-  "study.created": "started the study",
-  "scene.created": "added a scene",
-  "scene.saved": "saved a scene",
-  "block.added": "added a block",
-  "block.deleted": "removed a block",
-  "run.saved": "saved a run",
-  "run.deleted": "deleted a run",
-};
-
-function ActivityList({ items }: { items: ActivityItem[] }) {
-  if (items.length === 0) return <p className="text-sm text-muted">Nothing has happened here yet.</p>;
-  return (
-    <ol className="flex flex-col gap-3">
-      {items.map((item) => {
-        const detail = item.detail as { name?: string; title?: string } | null;
-        return (
-          <li key={item.id} className="flex gap-3 text-sm">
-            <span aria-hidden className="mt-1.5 size-2 shrink-0 rounded-full bg-tide-300" />
-            <div>
-              <p className="text-ink-soft">
-                <span className="font-medium text-ink">{item.actorName ?? "Someone"}</span> {activityVerbs[item.action] ?? item.action}
-                {detail?.name ? <span className="text-ink">: {detail.name}</span> : null}
-              </p>
-              <p className="text-xs text-muted">{formatWhen(item.createdAt)}</p>
-            </div>
-          </li>
-        );
-      })}
-    </ol>
-  );
-}
+import { ShareLinksPanel } from "@/components/share-links/share-links-panel";
 
 export function StudyView({ studyId }: { studyId: string }) {
   const query = useStudy(studyId);
+  // Live: the notebook, runs, feed and presence refresh when a colleague changes something.
+  const live = useStudyLiveUpdates(studyId, { enabled: !query.isError });
 
   if (query.isPending) return <LoadingRows label="Loading the study" />;
   if (query.isError) return <LoadFailure subject="study" error={query.error} onRetry={() => void query.refetch()} back={{ href: "/dashboard", label: "Back to studies" }} />;
 
-  const { study, role, scenes, activity } = query.data;
+  const { study, role, scenes } = query.data;
   return (
     <div className="flex flex-col gap-8">
       <div>
@@ -58,17 +30,26 @@ export function StudyView({ studyId }: { studyId: string }) {
           <RoleBadge role={role} />
         </div>
         {study.description ? <p className="mt-2 max-w-3xl text-[15px] leading-relaxed text-ink-soft">{study.description}</p> : null}
+        <div className="mt-3">
+          <StudyLiveStrip studyId={study.id} live={live} />
+        </div>
       </div>
 
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <StudyNotebook studyId={study.id} role={role} scenes={scenes} />
         <aside aria-labelledby="activity-heading" className="flex flex-col gap-4">
-          <h2 id="activity-heading" className="text-lg font-semibold text-ink">
-            Activity
-          </h2>
-          <div className="rounded-lg border border-rule bg-panel p-4">
-            <ActivityList items={activity} />
+          <div className="flex items-baseline justify-between gap-3">
+            <h2 id="activity-heading" className="text-lg font-semibold text-ink">
+              Activity
+            </h2>
+            <Link href={`/teams/${study.teamId}/activity`} className="text-sm font-medium text-tide-700 hover:underline">
+              Whole team
+            </Link>
           </div>
+          <div className="rounded-lg border border-rule bg-panel p-4">
+            <StudyActivityPanel studyId={study.id} viewerId={live.viewerId} />
+          </div>
+          <ShareLinksPanel studyId={study.id} role={role} />
         </aside>
       </div>
       <StudyRuns studyId={study.id} />

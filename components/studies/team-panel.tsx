@@ -1,4 +1,5 @@
 "use client";
+import Link from "next/link";
 import { ErrorState } from "@/components/ui/states";
 import { roleDescriptions } from "@/lib/access/roles";
 import { useTeamMembers } from "@/lib/client/queries";
@@ -9,9 +10,14 @@ export function TeamPanel({ teamId, currentUserEmail }: { teamId: string; curren
   const members = useTeamMembers(teamId);
   return (
     <section aria-labelledby="team-heading" className="flex flex-col gap-3">
-      <h2 id="team-heading" className="text-lg font-semibold text-ink">
-        Team
-      </h2>
+      <div className="flex items-baseline justify-between gap-3">
+        <h2 id="team-heading" className="text-lg font-semibold text-ink">
+          Team
+        </h2>
+        <Link href={`/teams/${teamId}`} className="text-sm font-medium text-tide-600 hover:underline">
+          Members and invitations
+        </Link>
+      </div>
       <div className="rounded-lg border border-rule bg-panel">
         {members.isPending ? (
           <p className="p-4 text-sm text-muted">Loading members…</p>

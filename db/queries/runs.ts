@@ -6,6 +6,8 @@ import type { RunListFigures, RunListItem, RunRecord } from "@/lib/http/api-type
 import type { RunSummary } from "@/lib/run-record/summary";
 import { getDb } from "../client";
 import { activity, run, scene, study, user, type RunStatus } from "../schema";
+import { attachSignOffs } from "./reviews";
+import { activityRow, publishActivity } from "./activity";
 import { newId, withDatabaseErrors } from "./wrap";
 
 /** Columns every answer about a run carries; never the payload, which can be tens of MB. */
@@ -23,6 +25,8 @@ const listColumns = {
   inputHash: run.inputHash,
   solverVersion: run.solverVersion,
   resultBytes: run.resultBytes,
+  reviewState: run.reviewState,
+  sceneCurrentVersion: scene.version,
 };
 
 export interface NewRun {
@@ -46,9 +50,18 @@ export interface NewRun {
 
 /** Stores a checked run and its activity entry in one transaction: if either fails, neither is kept. */
 export async function createRun(input: NewRun): Promise<RunRecord> {
+  const runId = newId();
+  const saved = activityRow({
+    teamId: input.teamId,
+    studyId: input.studyId,
+    actorId: input.createdBy,
+    action: "run.saved",
+    subjectType: "run",
+    subjectId: runId,
+    detail: { sceneName: input.sceneName, sceneVersion: input.sceneVersion, status: input.status },
+  });
   const id = await withDatabaseErrors("save the run", async () => {
     const db = await getDb();
-    const runId = newId();
     await db.transaction(async (tx) => {
       await tx.insert(run).values({
         id: runId,
@@ -66,19 +79,12 @@ export async function createRun(input: NewRun): Promise<RunRecord> {
         resultBytes: input.resultData.byteLength,
         createdBy: input.createdBy,
       });
-      await tx.insert(activity).values({
-        id: newId(),
-        teamId: input.teamId,
-        studyId: input.studyId,
-        actorId: input.createdBy,
-        action: "run.saved",
-        subjectType: "run",
-        subjectId: runId,
-        detail: { sceneName: input.sceneName, sceneVersion: input.sceneVersion, status: input.status },
-      });
+      await tx.insert(activity).values(saved);
     });
     return runId;
   });
+  // After the commit: open pages hear of the run only once they can read it.
+  await publishActivity(saved);
   const created = await getRunById({ id });
   if (!created) throw new Error(`run ${id} vanished after it was saved`);
   return created;
@@ -99,11 +105,13 @@ export async function listRunsByStudyId({ studyId }: { studyId: string }): Promi
       .leftJoin(user, eq(user.id, run.createdBy))
       .where(eq(run.studyId, studyId))
       .orderBy(desc(run.createdAt));
-    return rows.map(({ figures, warningCount, createdAt, ...row }) => ({
-      ...row,
-      createdAt: createdAt.toISOString(),
-      figures: figures ? { ...figures, warningCount } : null,
-    }));
+    return attachSignOffs(
+      rows.map(({ figures, warningCount, createdAt, ...row }) => ({
+        ...row,
+        createdAt: createdAt.toISOString(),
+        figures: figures ? { ...figures, warningCount } : null,
+      })),
+    );
   });
 }
 
@@ -120,7 +128,9 @@ export async function getRunById({ id }: { id: string }): Promise<RunRecord | nu
       .where(eq(run.id, id))
       .limit(1);
     const row = rows[0];
-    return row ? { ...row, summary: row.summary as RunSummary | null, createdAt: row.createdAt.toISOString() } : null;
+    if (!row) return null;
+    const [withSignOff] = await attachSignOffs([{ ...row, summary: row.summary as RunSummary | null, createdAt: row.createdAt.toISOString() }]);
+    return withSignOff ?? null;
   });
 }
 
@@ -135,11 +145,13 @@ export async function getRunResultById({ id }: { id: string }): Promise<Uint8Arr
 
 /** Deletes a run (its comments go with it) and notes who did so in the study's activity. */
 export async function deleteRunById({ id, teamId, studyId, actorId, sceneName }: { id: string; teamId: string; studyId: string; actorId: string; sceneName: string | null }): Promise<void> {
+  const deleted = activityRow({ teamId, studyId, actorId, action: "run.deleted", subjectType: "run", subjectId: id, detail: { sceneName } });
   await withDatabaseErrors("delete the run", async () => {
     const db = await getDb();
     await db.transaction(async (tx) => {
       await tx.delete(run).where(eq(run.id, id));
-      await tx.insert(activity).values({ id: newId(), teamId, studyId, actorId, action: "run.deleted", subjectType: "run", subjectId: id, detail: { sceneName } });
+      await tx.insert(activity).values(deleted);
     });
   });
+  await publishActivity(deleted);
 }

@@ -30,7 +30,17 @@ export async function listScenesByStudyId({ studyId }: { studyId: string }): Pro
   });
 }
 
-/** Stores a scene that has already been through parseScene, with its first version in the history. */
+/** Where a fork came from: the origin scene, its version that was copied, and who wrote that version. */
+export interface ForkOrigin {
+  sceneId: string;
+  version: number;
+  authorId: string | null;
+}
+
+/**
+ * Stores a scene that has already been through parseScene, with its first version in the history.
+ * A fork (`forkedFrom`) records its origin; its caller records "scene.forked" instead of "scene.created".
+ */
 export async function createScene({
   teamId,
   studyId,
@@ -40,6 +50,8 @@ export async function createScene({
   isReference,
   data,
   position,
+  forkedFrom,
+  note = "Created",
 }: {
   teamId: string;
   studyId: string;
@@ -49,15 +61,18 @@ export async function createScene({
   isReference: boolean;
   data: SceneData;
   position: number;
+  forkedFrom?: ForkOrigin;
+  note?: string;
 }): Promise<string> {
   return withDatabaseErrors("create the scene", async () => {
     const db = await getDb();
     const id = newId();
+    const origin = forkedFrom ? { forkedFromSceneId: forkedFrom.sceneId, forkedFromVersion: forkedFrom.version, forkedFromAuthorId: forkedFrom.authorId } : {};
     await db.transaction(async (tx) => {
-      await tx.insert(scene).values({ id, studyId, name, description, isReference, data, version: 1, position, createdBy: authorId, updatedBy: authorId });
-      await tx.insert(sceneVersion).values({ id: newId(), sceneId: id, version: 1, data, authorId, note: "Created" });
+      await tx.insert(scene).values({ id, studyId, name, description, isReference, data, version: 1, position, createdBy: authorId, updatedBy: authorId, ...origin });
+      await tx.insert(sceneVersion).values({ id: newId(), sceneId: id, version: 1, data, authorId, note });
     });
-    await recordActivity({ teamId, studyId, actorId: authorId, action: "scene.created", subjectType: "scene", subjectId: id, detail: { name } });
+    if (!forkedFrom) await recordActivity({ teamId, studyId, actorId: authorId, action: "scene.created", subjectType: "scene", subjectId: id, detail: { name } });
     return id;
   });
 }

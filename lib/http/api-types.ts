@@ -1,7 +1,9 @@
 // The shapes the API answers with, shared by db/queries (which build them) and the client
 // (which reads them). Dates travel as ISO strings.
 import type { TeamRole } from "@/lib/access/roles";
+import type { ReviewStateName } from "@/lib/review/review-states";
 import type { RunSummary } from "@/lib/run-record/summary";
+import type { RunSignOff } from "./review-types";
 
 export interface TeamMembershipSummary {
   teamId: string;
@@ -157,6 +159,12 @@ export interface RunListItem {
   /** Size of the stored payload, bytes. */
   resultBytes: number;
   figures: RunListFigures | null;
+  /** Where the run stands in review (lib/review/review-states.ts). */
+  reviewState: ReviewStateName;
+  /** The sign-off in force when reviewState is "signed_off", otherwise null. */
+  signOff: RunSignOff | null;
+  /** The scene's version now (null once it is deleted), so a sign-off for an older version shows as such. */
+  sceneCurrentVersion: number | null;
 }
 
 export interface RunRecord extends Omit<RunListItem, "figures"> {

@@ -50,6 +50,9 @@ function listed(overrides: Partial<RunListItem> = {}, figures: Partial<NonNullab
     inputHash: "1".repeat(64),
     solverVersion: "test",
     resultBytes: 1,
+    reviewState: "unreviewed",
+    signOff: null,
+    sceneCurrentVersion: 1,
     figures: {
       grid: { nx: 80, ny: 60, cells: 4800, domainNx: 40, domainNy: 20, cellSize: 0.1, timeStep: 1.2e-4 },
       steps: { planned: 500, run: 500 },

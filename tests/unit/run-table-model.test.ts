@@ -17,6 +17,9 @@ function listItem(overrides: Partial<RunListItem> = {}): RunListItem {
     inputHash: "a".repeat(64),
     solverVersion: "test",
     resultBytes: 1000,
+    reviewState: "unreviewed",
+    signOff: null,
+    sceneCurrentVersion: 4,
     figures: {
       grid: { nx: 200, ny: 100, cells: 20_000, domainNx: 180, domainNy: 90, cellSize: 0.025, timeStep: 1e-5 },
       steps: { planned: 100, run: 100 },

@@ -64,6 +64,9 @@ function listItem(saved: SavedRun, minute: number): RunListItem {
     inputHash: saved.run.header.inputHash,
     solverVersion: saved.run.header.solverVersion,
     resultBytes: saved.bytes.length,
+    reviewState: "unreviewed",
+    signOff: null,
+    sceneCurrentVersion: 1,
     figures: { ...figures, warningCount: warnings.length },
   };
 }
