@@ -79,11 +79,20 @@ export async function sendMail(mail: OutgoingMail): Promise<MailOutcome> {
 }
 
 /**
- * The address links in e-mails point at: RAREFACT_PUBLIC_URL (or BETTER_AUTH_URL) when set,
- * otherwise the origin of the request that caused the e-mail.
+ * The address links in e-mails and shared links point at: RAREFACT_PUBLIC_URL (or BETTER_AUTH_URL)
+ * when set, otherwise the origin the caller used. That origin is read from the Host header (and a
+ * proxy's X-Forwarded-Proto/-Host), because the request's own URL may name the server's bind
+ * address instead of the host the browser asked for. Set RAREFACT_PUBLIC_URL in production, so that
+ * a forged Host header cannot change the links Rarefact writes into e-mail.
  */
-export function publicAppUrl(path: string, requestUrl?: string): string {
+export function publicAppUrl(path: string, request?: Request): string {
   const configured = process.env.RAREFACT_PUBLIC_URL ?? process.env.BETTER_AUTH_URL;
-  const origin = configured ?? (requestUrl ? new URL(requestUrl).origin : `http://localhost:${process.env.PORT ?? "3000"}`);
-  return new URL(path, origin).toString();
+  return new URL(path, configured ?? (request ? requestOrigin(request) : `http://localhost:${process.env.PORT ?? "3000"}`)).toString();
+}
+
+function requestOrigin(request: Request): string {
+  const url = new URL(request.url);
+  const host = request.headers.get("x-forwarded-host")?.split(",")[0]?.trim() || request.headers.get("host") || url.host;
+  const protocol = request.headers.get("x-forwarded-proto")?.split(",")[0]?.trim() || url.protocol.replace(":", "");
+  return `${protocol}://${host}`;
 }

@@ -5,6 +5,7 @@ import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
 import { sceneTemplates } from "@/lib/scene-templates";
 import { keepScreenshot, signedInBrowser } from "./browser";
 import { DashboardPage } from "./pages/dashboard-page";
+import { openSceneFromNotebook } from "./pages/saved-run-steps";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
 
@@ -20,7 +21,7 @@ async function fieldPicture(page: Page): Promise<{ png: Buffer; colours: number 
 async function openScene(page: Page, sceneName: string): Promise<void> {
   await page.goto("/dashboard");
   await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-  await page.getByRole("link", { name: sceneName, exact: true }).click();
+  await openSceneFromNotebook(page, sceneName);
   await page.getByRole("button", { name: "Run in this browser" }).waitFor();
 }
 

@@ -4,24 +4,11 @@
 import fs from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoMembers, demoPassword, demoStudy } from "@/db/seed/demo-accounts";
+import { demoMembers, demoPassword } from "@/db/seed/demo-accounts";
 import { keepScreenshot, signedInBrowser } from "./browser";
+import { runAndSave } from "./pages/saved-run-steps";
 
 const engineer = demoMembers.find((m) => m.role === "owner")!;
-
-/** Runs a demo scene in the page, saves the run, and returns the saved run's page path. */
-async function runAndSave(page: Page, sceneName: string): Promise<string> {
-  await page.goto("/dashboard");
-  await page.getByRole("link", { name: new RegExp(demoStudy.title) }).click();
-  await page.getByRole("link", { name: sceneName, exact: true }).click();
-  await page.getByRole("button", { name: "Run in this browser" }).click();
-  await page.getByTestId("run-phase").filter({ hasText: "Finished" }).waitFor({ timeout: 240_000 });
-  const saved = page.getByRole("link", { name: "Open the saved run" });
-  // Saving may be automatic (a remembered preference); otherwise press the button.
-  if (!(await saved.isVisible())) await page.getByTestId("run-save").getByRole("button", { name: "Save run" }).click();
-  await saved.waitFor({ timeout: 60_000 });
-  return (await saved.getAttribute("href"))!;
-}
 
 describe("saved runs and their analysis", () => {
   let page: Page;

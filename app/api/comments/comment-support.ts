@@ -70,7 +70,7 @@ export async function mailNewMentions({
       studyTitle: study?.title ?? "a study",
       runLabel: `${run.sceneName ?? "a deleted scene"}, version ${run.sceneVersion}`,
       commentText: mentionsAsPlainText(body, names),
-      link: `${publicAppUrl(`/studies/${run.studyId}/runs/${run.id}`, request.url)}#comment-${commentId}`,
+      link: `${publicAppUrl(`/studies/${run.studyId}/runs/${run.id}`, request)}#comment-${commentId}`,
       reply,
     });
     for (const userId of recipients) {

@@ -19,7 +19,7 @@ const decisionKinds: Record<Exclude<ReviewCommand, "request_review">, ReviewDeci
   withdraw_sign_off: "sign_off_withdrawn",
 };
 
-export async function sendReviewMail({ command, run, actor, note, requestUrl }: { command: ReviewCommand; run: RunRecord; actor: Caller; note: string; requestUrl: string }): Promise<void> {
+export async function sendReviewMail({ command, run, actor, note, request }: { command: ReviewCommand; run: RunRecord; actor: Caller; note: string; request: Request }): Promise<void> {
   try {
     const [members, study, requesterId] = await Promise.all([
       listMembersByTeamId({ teamId: run.teamId }),
@@ -33,7 +33,7 @@ export async function sendReviewMail({ command, run, actor, note, requestUrl }: 
       runLabel: `${run.sceneName ?? "Deleted scene"}, version ${run.sceneVersion}`,
       runInputHash: run.inputHash,
       note,
-      link: publicAppUrl(`/studies/${run.studyId}/runs/${run.id}`, requestUrl),
+      link: publicAppUrl(`/studies/${run.studyId}/runs/${run.id}`, request),
     };
     const content =
       command === "request_review"

@@ -58,7 +58,7 @@ export const POST = apiRoute<Context>(async (request, { params }) => {
   } catch (error) {
     console.error(`[review] the decision on run ${runId} was kept, but its activity entry was not:`, error);
   }
-  await sendReviewMail({ command: verdict.command, run, actor: caller, note: input.note, requestUrl: request.url });
+  await sendReviewMail({ command: verdict.command, run, actor: caller, note: input.note, request });
   const updated = await getRunById({ id: runId });
   return Response.json({ run: updated, review }, { status: 201 });
 });

@@ -28,7 +28,7 @@ export const POST = apiRoute<Context>(async (request, { params }) => {
   const input = await parseJsonBody(request, shareLinkCreateSchema, "share_link", 8 * 1024);
   const { link, token } = await createShareLink({ studyId, label: input.label, createdBy: caller.userId });
   await recordActivity({ teamId: study.teamId, studyId, actorId: caller.userId, action: "share_link.created", subjectType: "share_link", subjectId: link.id, detail: { label: link.label } });
-  const body: ShareLinkCreatedResponse = { link, url: publicAppUrl(`/shared/${token}`, request.url) };
+  const body: ShareLinkCreatedResponse = { link, url: publicAppUrl(`/shared/${token}`, request) };
   // The answer holds the secret: no cache may keep it.
   return Response.json(body, { status: 201, headers: { "cache-control": "no-store" } });
 });

@@ -37,7 +37,7 @@ export const POST = apiRoute<Context>(async (request, { params }) => {
   const { invitation, token } = await createInvitation({ teamId, email, role, inviterId: caller.userId, expiresAt, now });
   await recordActivity({ teamId, actorId: caller.userId, action: "member.invited", subjectType: "invitation", subjectId: invitation.id, detail: { email, role } });
   // The invitation stands whatever happens to its e-mail (sendMail never throws and keeps a copy).
-  const content = invitationMail({ teamName: team.name, inviterName: caller.name, role, link: publicAppUrl(`/invitations/${token}`, request.url), expiresAt });
+  const content = invitationMail({ teamName: team.name, inviterName: caller.name, role, link: publicAppUrl(`/invitations/${token}`, request), expiresAt });
   const mail = await sendMail({ teamId, kind: "invitation", to: { address: email }, ...content });
   const body: CreatedInvitationResponse = { invitation, mail };
   return Response.json(body, { status: 201 });
