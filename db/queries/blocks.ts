@@ -22,6 +22,11 @@ function toItem(row: {
   return { ...row, updatedAt: row.updatedAt.toISOString() };
 }
 
+/** The study's blocks in order, exactly as stored (none added): for read-only views such as shared links. */
+export async function listStoredBlocksByStudyId({ studyId }: { studyId: string }): Promise<BlockItem[]> {
+  return withDatabaseErrors("read the notebook", () => selectBlocks(studyId));
+}
+
 async function selectBlocks(studyId: string): Promise<BlockItem[]> {
   const db = await getDb();
   const rows = await db

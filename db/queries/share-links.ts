@@ -3,14 +3,16 @@
 // looking that hash up, so the secret is never compared in application code.
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
-import { and, asc, desc, eq, isNull, type SQL } from "drizzle-orm";
+import { and, desc, eq, isNull, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import type { BlockItem, RunListFigures, RunListItem } from "@/lib/http/api-types";
+import type { RunListFigures, RunListItem } from "@/lib/http/api-types";
 import type { SharedRun, SharedScene, SharedStudyHeading, SharedStudyResponse, ShareLinkItem } from "@/lib/http/share-link-types";
 import type { RunSummary } from "@/lib/run-record/summary";
 import { getDb } from "../client";
-import { run, scene, study, studyBlock, studyShareLink, team, user } from "../schema";
+import { run, study, studyShareLink, team, user } from "../schema";
+import { listStoredBlocksByStudyId } from "./blocks";
 import { getRunById, listRunsByStudyId } from "./runs";
+import { listScenesByStudyId } from "./scenes";
 import { newId, withDatabaseErrors } from "./wrap";
 
 /** 32 random bytes: 256 bits, so guessing a link is hopeless and needs no rate limit. */
@@ -131,43 +133,9 @@ export async function findSharedStudyByToken({ token }: { token: string }): Prom
   });
 }
 
-/** The notebook's blocks in order, read only (the members' list also adds blocks for new scenes). */
-async function selectSharedBlocks(studyId: string): Promise<BlockItem[]> {
-  const db = await getDb();
-  const rows = await db
-    .select({
-      id: studyBlock.id,
-      kind: studyBlock.kind,
-      position: studyBlock.position,
-      content: studyBlock.content,
-      collapsed: studyBlock.collapsed,
-      version: studyBlock.version,
-      updatedByName: user.name,
-      updatedAt: studyBlock.updatedAt,
-    })
-    .from(studyBlock)
-    .leftJoin(user, eq(user.id, studyBlock.updatedBy))
-    .where(eq(studyBlock.studyId, studyId))
-    .orderBy(asc(studyBlock.position), asc(studyBlock.createdAt));
-  return rows.map((row) => ({ ...row, updatedAt: row.updatedAt.toISOString() }));
-}
-
+/** The scenes as the link shows them: without who last changed them (names of people stay on runs only). */
 async function selectSharedScenes(studyId: string): Promise<SharedScene[]> {
-  const db = await getDb();
-  const rows = await db
-    .select({
-      id: scene.id,
-      name: scene.name,
-      description: scene.description,
-      isReference: scene.isReference,
-      version: scene.version,
-      data: scene.data,
-      updatedAt: scene.updatedAt,
-    })
-    .from(scene)
-    .where(eq(scene.studyId, studyId))
-    .orderBy(asc(scene.position), asc(scene.createdAt));
-  return rows.map((row) => ({ ...row, updatedAt: row.updatedAt.toISOString() }));
+  return (await listScenesByStudyId({ studyId })).map(({ updatedByName: _updatedByName, ...shared }) => shared);
 }
 
 /** The list's figures: the summary without its long parts, as the members' run table has them. */
@@ -192,7 +160,7 @@ async function selectRunSummaries(studyId: string): Promise<Map<string, RunSumma
 /** Everything the shared view shows of the one study the link opens. */
 export async function getSharedStudyContent({ access }: { access: SharedStudyAccess }): Promise<SharedStudyResponse> {
   const [blocks, scenes, items, summaries] = await withDatabaseErrors("read the shared study", () =>
-    Promise.all([selectSharedBlocks(access.studyId), selectSharedScenes(access.studyId), listRunsByStudyId({ studyId: access.studyId }), selectRunSummaries(access.studyId)]),
+    Promise.all([listStoredBlocksByStudyId({ studyId: access.studyId }), selectSharedScenes(access.studyId), listRunsByStudyId({ studyId: access.studyId }), selectRunSummaries(access.studyId)]),
   );
   const runs = items.map(({ figures: _figures, ...item }) => toSharedRun(item, summaries.get(item.id) ?? null));
   return { study: access.heading, blocks, scenes, runs };
