@@ -3,7 +3,7 @@
 // tell runs apart, and a link to the run. Removing the block leaves the run in the run table.
 import Link from "next/link";
 import { RunStatusBadge } from "@/components/runs/run-status-badge";
-import { formatGrid, formatLevel, formatWallTime } from "@/components/runs/run-table-model";
+import { RunFigureList } from "@/components/runs/run-figure-list";
 import { ErrorState, LoadingRows } from "@/components/ui/states";
 import { formatWhen } from "@/lib/client/format";
 import { useStudyRuns } from "@/lib/client/run-queries";
@@ -26,16 +26,6 @@ export function RunBlock({ block, studyId }: { block: BlockItem; studyId: string
   if (runs.isError) return <ErrorState title="The run could not be loaded" message={runs.error.message} onRetry={() => void runs.refetch()} />;
   const run = runs.data.runs.find((item) => item.id === runId);
   if (!run) return <p className="text-sm text-muted">This run has been deleted. The block can be removed.</p>;
-  const figures = run.figures;
-  const rows: [string, string][] = figures
-    ? [
-        ["Loudest receiver (peak)", formatLevel(figures.loudestPeakLevelDb)],
-        ["Simulated", `${(figures.simulatedSeconds * 1000).toFixed(1)} ms in ${figures.steps.run.toLocaleString("en-GB")} steps`],
-        ["Grid", formatGrid(figures.grid.cells, figures.grid.cellSize)],
-        ["Wall time", formatWallTime(figures.wallSeconds)],
-        ["Warnings", String(figures.warningCount)],
-      ]
-    : [];
   return (
     <div className="flex flex-col gap-3" data-testid="run-block">
       <div className="flex flex-wrap items-center gap-3">
@@ -51,18 +41,7 @@ export function RunBlock({ block, studyId }: { block: BlockItem; studyId: string
         </Link>
       </div>
       {run.statusMessage ? <p className="text-sm text-ink-soft">{run.statusMessage}</p> : null}
-      {rows.length > 0 ? (
-        <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-xs sm:grid-cols-5">
-          {rows.map(([label, value]) => (
-            <div key={label}>
-              <dt className="text-muted">{label}</dt>
-              <dd className="tabular font-mono text-[13px] text-ink">{value}</dd>
-            </div>
-          ))}
-        </dl>
-      ) : (
-        <p className="text-sm text-muted">This run has no summary figures.</p>
-      )}
+      <RunFigureList figures={run.figures} />
     </div>
   );
 }

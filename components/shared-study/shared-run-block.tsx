@@ -2,7 +2,7 @@
 // that tell runs apart, and a link to the run's read-only page.
 import Link from "next/link";
 import { RunStatusBadge } from "@/components/runs/run-status-badge";
-import { formatGrid, formatLevel, formatWallTime } from "@/components/runs/run-table-model";
+import { RunFigureList } from "@/components/runs/run-figure-list";
 import type { SharedRun } from "@/lib/http/share-link-types";
 import { SharedReviewBadge } from "./review-state-badge";
 import { SharedWhen } from "./shared-when";
@@ -13,16 +13,6 @@ export function sharedRunHref(token: string, runId: string): string {
 
 export function SharedRunBlock({ token, run }: { token: string; run: SharedRun | undefined }) {
   if (!run) return <p className="text-sm text-muted">This run has been deleted.</p>;
-  const figures = run.figures;
-  const rows: [string, string][] = figures
-    ? [
-        ["Loudest receiver (peak)", formatLevel(figures.loudestPeakLevelDb)],
-        ["Simulated", `${(figures.simulatedSeconds * 1000).toFixed(1)} ms in ${figures.steps.run.toLocaleString("en-GB")} steps`],
-        ["Grid", formatGrid(figures.grid.cells, figures.grid.cellSize)],
-        ["Wall time", formatWallTime(figures.wallSeconds)],
-        ["Warnings", String(figures.warningCount)],
-      ]
-    : [];
   return (
     <div className="flex flex-col gap-3" data-testid="shared-run-block">
       <div className="flex flex-wrap items-center gap-3">
@@ -39,18 +29,7 @@ export function SharedRunBlock({ token, run }: { token: string; run: SharedRun |
         </Link>
       </div>
       {run.statusMessage ? <p className="text-sm text-ink-soft">{run.statusMessage}</p> : null}
-      {rows.length > 0 ? (
-        <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-xs sm:grid-cols-5">
-          {rows.map(([label, value]) => (
-            <div key={label}>
-              <dt className="text-muted">{label}</dt>
-              <dd className="tabular font-mono text-[13px] text-ink">{value}</dd>
-            </div>
-          ))}
-        </dl>
-      ) : (
-        <p className="text-sm text-muted">This run has no summary figures.</p>
-      )}
+      <RunFigureList figures={run.figures} />
     </div>
   );
 }
