@@ -11,6 +11,7 @@ import { RunDiscussionSection } from "@/components/comments/run-discussion";
 import { ReviewPanel } from "@/components/review/review-panel";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { signOffIsOlder } from "@/components/review/sign-off-facts";
+import { RunFactList } from "@/components/runs/run-fact-list";
 import { RunStatusBadge } from "@/components/runs/run-status-badge";
 import { formatWallTime } from "@/components/runs/run-table-model";
 import { formatBytes } from "@/components/scenes/grid-figures";
@@ -162,14 +163,7 @@ function SavedRunHeader({ run, role, callerId }: { run: RunRecord; role: Paramet
         </div>
       </div>
       {run.statusMessage ? <p className="mt-1 text-sm text-ink-soft">{run.statusMessage}</p> : null}
-      <dl className="mt-3 flex flex-wrap gap-x-6 gap-y-2 text-sm">
-        {facts.map(([label, value]) => (
-          <div key={label}>
-            <dt className="text-xs text-muted">{label}</dt>
-            <dd className="text-ink">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <RunFactList facts={facts} />
       {remove.isError ? (
         <div className="mt-3">
           <ErrorState title="The run was not deleted" message={remove.error.message} />

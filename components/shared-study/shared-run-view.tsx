@@ -11,6 +11,7 @@ import { ReceiverPicker } from "@/components/analysis/receiver-picker";
 import { sceneFacts } from "@/components/analysis/run-analysis";
 import { SpectrumChart } from "@/components/analysis/spectrum-chart";
 import { TraceChart } from "@/components/analysis/trace-chart";
+import { RunFactList } from "@/components/runs/run-fact-list";
 import { RunStatusBadge } from "@/components/runs/run-status-badge";
 import { formatWallTime } from "@/components/runs/run-table-model";
 import { FrozenSceneSettings } from "@/components/saved-run/frozen-scene-settings";
@@ -63,14 +64,7 @@ export function SharedRunView({ token, studyTitle, run }: { token: string; study
           <SharedReviewBadge state={run.reviewState} />
         </div>
         {run.statusMessage ? <p className="mt-1 text-sm text-ink-soft">{run.statusMessage}</p> : null}
-        <dl className="mt-3 flex flex-wrap gap-x-6 gap-y-2 text-sm">
-          {facts.map(([label, value]) => (
-            <div key={label}>
-              <dt className="text-xs text-muted">{label}</dt>
-              <dd className="text-ink">{value}</dd>
-            </div>
-          ))}
-        </dl>
+        <RunFactList facts={facts} />
       </div>
       {payload.isError ? <ErrorState title="The stored result could not be read" message={payload.error.message} onRetry={() => void payload.refetch()} /> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">

@@ -33,10 +33,15 @@ export async function saveRunRecord(input: SaveRunInput): Promise<RunRecord> {
 }
 
 /** Downloads a saved run's payload (the browser caches it: a saved run never changes) and decodes it. */
-export async function fetchSavedRun(runId: string): Promise<DecodedRun> {
+export function fetchSavedRun(runId: string): Promise<DecodedRun> {
+  return fetchRunPayload(`/api/runs/${runId}/result`, "same-origin");
+}
+
+/** Downloads a run payload from `url` and decodes it; errors keep the server's code and message. */
+export async function fetchRunPayload(url: string, credentials: RequestCredentials): Promise<DecodedRun> {
   let response: Response;
   try {
-    response = await fetch(`/api/runs/${runId}/result`, { credentials: "same-origin" });
+    response = await fetch(url, { credentials });
   } catch {
     throw new ApiError(0, "network", "The server could not be reached. Check your connection and try again.");
   }

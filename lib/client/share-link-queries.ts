@@ -2,11 +2,11 @@
 // Read-only links from the browser: the owner's list, making and revoking a link; and, for whoever holds
 // a link, a shared run's stored payload fetched and decoded through the link.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { isErrorBody } from "@/lib/http/app-error";
 import type { ShareLinkCreatedResponse, ShareLinkItem, ShareLinksResponse } from "@/lib/http/share-link-types";
-import { decodeRunPayload, type DecodedRun } from "@/lib/run-record/payload";
+import type { DecodedRun } from "@/lib/run-record/payload";
 import type { ShareLinkCreateInput } from "@/lib/validation/share-link";
-import { ApiError, fetchJson } from "./api";
+import { fetchJson } from "./api";
+import { fetchRunPayload } from "./run-records";
 
 export const shareLinkQueryKeys = {
   links: (studyId: string) => ["studies", studyId, "share-links"] as const,
@@ -44,22 +44,9 @@ export function useRevokeShareLink(studyId: string) {
   });
 }
 
-/** Downloads a shared run's payload through the link and decodes it. */
-export async function fetchSharedRun(token: string, runId: string): Promise<DecodedRun> {
-  let response: Response;
-  try {
-    response = await fetch(`/api/shared/${encodeURIComponent(token)}/runs/${encodeURIComponent(runId)}/result`, { credentials: "omit" });
-  } catch {
-    throw new ApiError(0, "network", "The server could not be reached. Check your connection and try again.");
-  }
-  if (!response.ok) {
-    const body: unknown = await response.json().catch(() => null);
-    if (isErrorBody(body)) throw new ApiError(response.status, body.error.code, body.error.message, body.error.issues ?? []);
-    throw new ApiError(response.status, "unknown", `The server answered ${response.status}.`);
-  }
-  const decoded = decodeRunPayload(new Uint8Array(await response.arrayBuffer()));
-  if (!decoded.ok) throw new ApiError(response.status, "corrupt:run", `The saved run could not be read: ${decoded.path}: ${decoded.message}`);
-  return decoded.run;
+/** Downloads a shared run's payload through the link (no cookies sent) and decodes it. */
+export function fetchSharedRun(token: string, runId: string): Promise<DecodedRun> {
+  return fetchRunPayload(`/api/shared/${encodeURIComponent(token)}/runs/${encodeURIComponent(runId)}/result`, "omit");
 }
 
 /** A saved run never changes: once decoded it is kept for the page's life (the server sends no-store). */
