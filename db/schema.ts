@@ -5,10 +5,13 @@
 import {
   boolean,
   customType,
+  doublePrecision,
   index,
   integer,
   jsonb,
   pgTable,
+  primaryKey,
+  real,
   text,
   timestamp,
   uniqueIndex,
@@ -452,3 +455,173 @@ export const studyPresence = pgTable(
   (table) => [index("study_presence_study_id_idx").on(table.studyId, table.lastSeenAt)],
 );
 export type StudyPresence = typeof studyPresence.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Server-side runs: jobs queued through pg-boss (which keeps its own tables in schema "pgboss")
+// and executed by worker processes. These rows are what people see: position, progress, failures.
+// ---------------------------------------------------------------------------------------------
+
+export const runJobStates = ["queued", "running", "completed", "failed", "cancelled"] as const;
+export type RunJobState = (typeof runJobStates)[number];
+/** A plain run of a saved scene version, or one planned run of a server sweep. */
+export const runJobKinds = ["run", "sweep-reference", "sweep-case"] as const;
+export type RunJobKind = (typeof runJobKinds)[number];
+
+/** A parameter sweep run on the server: its cases are jobs; its result becomes a sweep chart block. */
+export const sweepBatch = pgTable(
+  "sweep_batch",
+  {
+    id: text("id").primaryKey(),
+    teamId: text("team_id")
+      .notNull()
+      .references(() => team.id, { onDelete: "cascade" }),
+    studyId: text("study_id")
+      .notNull()
+      .references(() => study.id, { onDelete: "cascade" }),
+    sceneId: text("scene_id").references(() => scene.id, { onDelete: "set null" }),
+    sceneVersion: integer("scene_version").notNull(),
+    /** The sweep's definition (lib/validation/blocks.ts sweepDefinitionSchema). */
+    definition: jsonb("definition").notNull(),
+    /** Plain-language title shown in the queue ("Barrier height, 12 values"). */
+    label: text("label").notNull().default(""),
+    state: text("state", { enum: runJobStates }).notNull().default("queued"),
+    message: text("message").notNull().default(""),
+    /** The sweep chart block written into the notebook when the last case finished. */
+    blockId: text("block_id").references(() => studyBlock.id, { onDelete: "set null" }),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [index("sweep_batch_study_id_idx").on(table.studyId, table.createdAt)],
+);
+export type SweepBatch = typeof sweepBatch.$inferSelect;
+
+export const runJob = pgTable(
+  "run_job",
+  {
+    id: text("id").primaryKey(),
+    teamId: text("team_id")
+      .notNull()
+      .references(() => team.id, { onDelete: "cascade" }),
+    studyId: text("study_id")
+      .notNull()
+      .references(() => study.id, { onDelete: "cascade" }),
+    sceneId: text("scene_id").references(() => scene.id, { onDelete: "set null" }),
+    sceneVersion: integer("scene_version").notNull(),
+    kind: text("kind", { enum: runJobKinds }).notNull().default("run"),
+    sweepId: text("sweep_id").references(() => sweepBatch.id, { onDelete: "cascade" }),
+    /** The planned run's id within its sweep (a case or a reference). */
+    sweepRunId: text("sweep_run_id"),
+    caseIndex: integer("case_index"),
+    label: text("label").notNull().default(""),
+    /** The scene exactly as it will be run: a saved version, or a sweep's variant of one. */
+    scene: jsonb("scene").notNull(),
+    settings: jsonb("settings").notNull(),
+    /** Grid cells x time steps: the job's size, for the team's limits and the time estimate. */
+    cellSteps: doublePrecision("cell_steps").notNull(),
+    state: text("state", { enum: runJobStates }).notNull().default("queued"),
+    /** pg-boss's id of the job that delivers this row to a worker. */
+    queueJobId: text("queue_job_id"),
+    workerId: text("worker_id"),
+    attempt: integer("attempt").notNull().default(0),
+    maxAttempts: integer("max_attempts").notNull().default(3),
+    /** 0..1 of the current attempt. */
+    progress: real("progress").notNull().default(0),
+    cellUpdatesPerSecond: doublePrecision("cell_updates_per_second"),
+    progressAt: timestamp("progress_at", { withTimezone: true }),
+    /** Failed attempts: [{ attempt, workerId, message, at }]. */
+    failures: jsonb("failures").$type<{ attempt: number; workerId: string | null; message: string; at: string }[]>().notNull().default([]),
+    message: text("message").notNull().default(""),
+    cancelRequestedAt: timestamp("cancel_requested_at", { withTimezone: true }),
+    cancelledBy: text("cancelled_by").references(() => user.id, { onDelete: "set null" }),
+    /** The saved run this job produced (plain runs); written once, whichever attempt finishes first. */
+    runId: text("run_id").references(() => run.id, { onDelete: "set null" }),
+    /** A sweep run's result: the traces of the sweep's receivers (compressed float32), for the sweep's chart. */
+    resultTraces: bytea("result_traces"),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    startedAt: timestamp("started_at", { withTimezone: true }),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [
+    index("run_job_team_state_idx").on(table.teamId, table.state),
+    index("run_job_study_id_idx").on(table.studyId, table.createdAt),
+    index("run_job_sweep_id_idx").on(table.sweepId),
+    uniqueIndex("run_job_run_id_uidx").on(table.runId),
+  ],
+);
+export type RunJob = typeof runJob.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Personal API tokens: a script acts as its user, within one team, with a role no higher than theirs.
+// ---------------------------------------------------------------------------------------------
+
+export const apiToken = pgTable(
+  "api_token",
+  {
+    id: text("id").primaryKey(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    teamId: text("team_id")
+      .notNull()
+      .references(() => team.id, { onDelete: "cascade" }),
+    /** The most the token may do; the user's current role in the team caps it further at each call. */
+    role: text("role").notNull(),
+    name: text("name").notNull(),
+    /** SHA-256 (hex) of the secret; the secret is shown once, when the token is made. */
+    tokenHash: text("token_hash").notNull(),
+    /** The first characters of the secret, so people can tell their tokens apart. */
+    tokenPrefix: text("token_prefix").notNull(),
+    createdAt: createdAt(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }),
+    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (table) => [uniqueIndex("api_token_token_hash_uidx").on(table.tokenHash), index("api_token_user_id_idx").on(table.userId)],
+);
+export type ApiToken = typeof apiToken.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Verification: results of the verification cases run in someone's browser, kept as evidence and
+// attachable to run reports.
+// ---------------------------------------------------------------------------------------------
+
+export const verificationRecord = pgTable(
+  "verification_record",
+  {
+    id: text("id").primaryKey(),
+    teamId: text("team_id")
+      .notNull()
+      .references(() => team.id, { onDelete: "cascade" }),
+    solverVersion: text("solver_version").notNull(),
+    /** Browser and platform that ran the cases, as the page reported them. */
+    browser: text("browser").notNull(),
+    kernel: text("kernel").notNull().default(""),
+    /** Per case: id, title, pass, checks, curves (lib/verification/cases/types.ts), seconds. */
+    outcomes: jsonb("outcomes").notNull(),
+    passedCount: integer("passed_count").notNull(),
+    failedCount: integer("failed_count").notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (table) => [index("verification_record_team_id_idx").on(table.teamId, table.createdAt)],
+);
+export type VerificationRecord = typeof verificationRecord.$inferSelect;
+
+/** A verification record attached to a run as quality evidence for its report. */
+export const runVerification = pgTable(
+  "run_verification",
+  {
+    runId: text("run_id")
+      .notNull()
+      .references(() => run.id, { onDelete: "cascade" }),
+    verificationId: text("verification_id")
+      .notNull()
+      .references(() => verificationRecord.id, { onDelete: "cascade" }),
+    attachedBy: text("attached_by").references(() => user.id, { onDelete: "set null" }),
+    attachedAt: timestamp("attached_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.runId, table.verificationId] })],
+);
+export type RunVerification = typeof runVerification.$inferSelect;
