@@ -14,7 +14,7 @@ const config = [
   {
     // lib/server (auth, access gate) and lib/client (browser hooks) are the app's own layers;
     // everything else under lib/ is pure TypeScript that runs anywhere.
-    files: ["lib/fdtd/**/*.ts", "lib/verification/**/*.ts", "lib/analysis/**/*.ts", "lib/scene-templates/**/*.ts", "lib/access/**/*.ts", "lib/validation/**/*.ts", "lib/http/**/*.ts", "lib/scene-import/**/*.ts", "lib/run-record/**/*.ts", "lib/scene-variants/**/*.ts", "lib/live/**/*.ts", "lib/review/**/*.ts", "lib/mail-templates/**/*.ts", "lib/collaboration/**/*.ts"],
+    files: ["lib/fdtd/**/*.ts", "lib/verification/**/*.ts", "lib/analysis/**/*.ts", "lib/scene-templates/**/*.ts", "lib/access/**/*.ts", "lib/validation/**/*.ts", "lib/http/**/*.ts", "lib/scene-import/**/*.ts", "lib/run-record/**/*.ts", "lib/scene-variants/**/*.ts", "lib/live/**/*.ts", "lib/review/**/*.ts", "lib/mail-templates/**/*.ts", "lib/collaboration/**/*.ts", "lib/sweeps/**/*.ts"],
     rules: {
       "no-restricted-imports": ["error", { patterns: [{ group: outsideLib, message: "lib/ is pure TypeScript: no DOM, React, Next.js or database imports." }] }],
     },

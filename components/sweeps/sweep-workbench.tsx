@@ -19,7 +19,7 @@ import { removableElements } from "@/lib/scene-variants/reference-scene";
 import { MAX_SWEEP_CASES, sweepValues } from "@/lib/scene-variants/sweep";
 import { chartContentSchema, MAX_SAVED_SWEEP_RECEIVERS, type SweepDefinition, type SweepReference } from "@/lib/validation/blocks";
 import { formatEstimate, formatRate } from "./model/format-duration";
-import { currentValue, defaultRange, defaultReceiverIds, defaultReference, estimatedSeconds, parameterChoices, parameterKey, planSweep, receiverOptions } from "./model/sweep-plan";
+import { currentValue, defaultRange, defaultReceiverIds, defaultReference, estimatedSeconds, parameterChoices, parameterKey, planSweep, receiverOptions } from "@/lib/sweeps/sweep-plan";
 import { SweepResultView } from "./sweep-result-view";
 import { useSweepRun } from "./use-sweep-run";
 

@@ -6,8 +6,8 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import type { PressureTrace } from "@/lib/analysis/band-levels";
 import type { SweepDefinition, SweepResults } from "@/lib/validation/blocks";
 import { runSceneInWorker } from "@/components/run/run-in-worker";
-import { pickTraces, sweepInsertionLoss, type CaseState } from "./model/sweep-insertion-loss";
-import type { PlannedRun, SweepPlan } from "./model/sweep-plan";
+import { pickTraces, sweepInsertionLoss, type CaseState } from "@/lib/sweeps/sweep-insertion-loss";
+import type { PlannedRun, SweepPlan } from "@/lib/sweeps/sweep-plan";
 
 export interface SweepJob {
   plan: SweepPlan;

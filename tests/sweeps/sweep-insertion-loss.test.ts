@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { padTraces, pickTraces, sweepInsertionLoss, type CaseState } from "@/components/sweeps/model/sweep-insertion-loss";
-import { planSweep } from "@/components/sweeps/model/sweep-plan";
+import { padTraces, pickTraces, sweepInsertionLoss, type CaseState } from "@/lib/sweeps/sweep-insertion-loss";
+import { planSweep } from "@/lib/sweeps/sweep-plan";
 import type { PressureTrace } from "@/lib/analysis/band-levels";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { runScene } from "@/lib/fdtd/simulation";

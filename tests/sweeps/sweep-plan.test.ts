@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { currentValue, defaultRange, defaultReceiverIds, defaultReference, estimatedSeconds, forSweepRun, parameterChoices, planSweep, receiverOptions } from "@/components/sweeps/model/sweep-plan";
+import { currentValue, defaultRange, defaultReceiverIds, defaultReference, estimatedSeconds, forSweepRun, parameterChoices, planSweep, receiverOptions } from "@/lib/sweeps/sweep-plan";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { sweepValues } from "@/lib/scene-variants/sweep";
 import { barrierScene } from "./fixtures";

@@ -9,7 +9,7 @@ import { mediumProperties } from "@/lib/fdtd/medium";
 import type { Edge, Medium, Scene, Signal, SurfaceTreatment } from "@/lib/fdtd/scene";
 import type { RunListItem } from "@/lib/http/api-types";
 import type { DecodedRun } from "@/lib/run-record/payload";
-import { padTraces } from "@/components/sweeps/model/sweep-insertion-loss";
+import { padTraces } from "@/lib/sweeps/sweep-insertion-loss";
 
 const figure = (value: number, digits = 3) => String(Number(value.toPrecision(digits)));
 
