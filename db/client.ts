@@ -12,12 +12,22 @@ export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 /** Stops listening to a channel. */
 export type Unlisten = () => Promise<void>;
 
+/**
+ * How the run queue (pg-boss) reaches this process's database: a PostgreSQL server by its URL (pg-boss
+ * keeps a pool of its own), or the embedded PGlite through the one client (a single connection, so
+ * every statement queues behind an open transaction).
+ */
+export type QueueConnection =
+  | { kind: "postgres"; url: string }
+  | { kind: "pglite"; executeSql: (text: string, values?: unknown[]) => Promise<{ rows: unknown[] }> };
+
 interface OpenDatabase {
   db: Database;
   kind: "pglite" | "postgres";
   /** LISTEN on a channel; PGlite delivers in-process, PostgreSQL over a connection of its own. */
   listen: (channel: string, onPayload: (payload: string) => void) => Promise<Unlisten>;
   close: () => Promise<void>;
+  queue: QueueConnection;
 }
 
 const cacheKey = Symbol.for("rarefact.database");
@@ -38,7 +48,28 @@ async function openPglite(dir: string): Promise<OpenDatabase> {
     kind: "pglite",
     listen: async (channel, onPayload) => client.listen(channel, onPayload),
     close: () => client.close(),
+    queue: { kind: "pglite", executeSql: (text, values) => executeOnPglite(client, text, values) },
   };
+}
+
+type PgliteClient = InstanceType<(typeof import("@electric-sql/pglite"))["PGlite"]>;
+
+/**
+ * pg-boss's statements on PGlite: with values, one prepared statement; without, possibly several in one
+ * text (its schema creation and maintenance run as BEGIN; ...; COMMIT), which only exec() accepts. The
+ * rows answered are those of the last statement that returns any. A failed multi-statement text could
+ * leave its transaction open on the one connection, so it is rolled back.
+ */
+async function executeOnPglite(client: PgliteClient, text: string, values?: unknown[]): Promise<{ rows: unknown[] }> {
+  if (values && values.length > 0) return { rows: (await client.query(text, values)).rows };
+  try {
+    const results = await client.exec(text);
+    const last = [...results].reverse().find((result) => result.fields.length > 0);
+    return { rows: last?.rows ?? [] };
+  } catch (error) {
+    if (/\bBEGIN\b/i.test(text)) await client.exec("ROLLBACK").catch(() => undefined);
+    throw error;
+  }
 }
 
 async function openPostgres(url: string): Promise<OpenDatabase> {
@@ -66,6 +97,7 @@ async function openPostgres(url: string): Promise<OpenDatabase> {
       await Promise.all([...listeners].map((listener) => listener.close()));
       await pool.end();
     },
+    queue: { kind: "postgres", url },
   };
 }
 
@@ -124,6 +156,14 @@ export async function getDb(): Promise<Database> {
 /** Listens to a NOTIFY channel of the process's database. */
 export async function listenToChannel(channel: string, onPayload: (payload: string) => void): Promise<Unlisten> {
   return (await getOpenDatabase()).listen(channel, onPayload);
+}
+
+/** Where the run queue finds this process's database (lib/server/run-queue/boss.ts). */
+export async function getQueueConnection(): Promise<QueueConnection> {
+  const { queue } = await getOpenDatabase();
+  // A development server keeps the database its first code opened across reloads; that code had no queue.
+  if (!queue) throw new Error("the database was opened before the run queue existed in this process; restart the server");
+  return queue;
 }
 
 export async function getDatabaseKind(): Promise<"pglite" | "postgres"> {

@@ -11,6 +11,7 @@ import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { Button } from "@/components/ui/button";
 import { bandLevelTable, type BandsPerOctave } from "@/lib/analysis/band-levels";
 import { insertionLossCsv } from "@/lib/analysis/csv";
+import { UnresolvedBandsNote, unresolvedBandsOf } from "./unresolved-bands-note";
 import { insertionLossTable, type InsertionLossTable } from "@/lib/analysis/insertion-loss";
 import { levelMapCompatibility, referenceListCompatibility, referencePayloadCompatibility, type Compatibility } from "@/lib/analysis/run-compatibility";
 import { useSavedRunPayload, useStudyRuns } from "@/lib/client/run-queries";
@@ -200,9 +201,10 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
             ariaLabel="Insertion loss per band"
           />
           <div className="flex flex-wrap justify-end gap-2">
-            <ExportButton label="CSV" onExport={() => downloadCsv(insertionLossCsv(table), exportFileName(runId, `insertion-loss-${bandFileTag(bandsPerOctave, weighting)}`, "csv"))} />
+            <ExportButton label="CSV" onExport={() => downloadCsv(insertionLossCsv(table, unresolvedBandsOf(run, bandsPerOctave, highestResolvedFrequency)), exportFileName(runId, `insertion-loss-${bandFileTag(bandsPerOctave, weighting)}`, "csv"))} />
             <ExportButton label="PNG" onExport={async () => downloadBlob(await svgChartPng(svg.current!), exportFileName(runId, "insertion-loss", "png"))} />
           </div>
+          <UnresolvedBandsNote excluded={unresolvedBandsOf(run, bandsPerOctave, highestResolvedFrequency)} />
         </>
       ) : null}
 

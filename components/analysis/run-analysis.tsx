@@ -6,6 +6,7 @@ import { useMemo, useState } from "react";
 
 import { useRevealPinnedReceiver } from "@/components/comments/pin-context";
 import { AddChartButton } from "@/components/notebook/add-chart-block";
+import { resolvedFrequencyLimit } from "@/lib/analysis/accuracy";
 import { useStudyRuns } from "@/lib/client/run-queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene, type Scene } from "@/lib/fdtd/scene";
@@ -44,8 +45,8 @@ export interface RunAnalysisProps {
   canCreate: boolean;
 }
 
-/** Points per wavelength assumed when the frozen scene cannot be read (the solver's default). */
-const FALLBACK_POINTS_PER_WAVELENGTH = 10;
+/** Sound speed assumed when the frozen scene cannot be read: air at about 20 °C, m/s. */
+const FALLBACK_SOUND_SPEED = 343;
 
 export interface SceneFacts {
   scene: Scene | null;
@@ -54,18 +55,21 @@ export interface SceneFacts {
   temperature?: number;
 }
 
-/** The frozen scene and the grid's highest resolved frequency; an estimate from the cell size when the scene cannot be read. */
+/**
+ * The frozen scene and the highest frequency a band may reach and count as resolved, from the accuracy
+ * estimate's one decision (resolvedFrequencyLimit); an estimate from the cell size when the scene cannot be read.
+ */
 export function sceneFacts(run: DecodedRun): SceneFacts {
   const parsed = parseScene(run.header.scene);
   if (parsed.ok) {
     const grid = deriveGrid(parsed.scene);
-    return { scene: parsed.scene, highestResolvedFrequency: grid.maxResolvedFrequency, temperature: parsed.scene.medium.kind === "air" ? parsed.scene.medium.temperature : undefined };
+    return { scene: parsed.scene, highestResolvedFrequency: resolvedFrequencyLimit(grid), temperature: parsed.scene.medium.kind === "air" ? parsed.scene.medium.temperature : undefined };
   }
   const first = parsed.problems[0];
   return {
     scene: null,
     problem: first ? `${first.path || "(scene)"}: ${first.message}` : "unknown problem",
-    highestResolvedFrequency: 343 / (FALLBACK_POINTS_PER_WAVELENGTH * run.header.grid.cellSize),
+    highestResolvedFrequency: resolvedFrequencyLimit({ cellSize: run.header.grid.cellSize, minSoundSpeed: FALLBACK_SOUND_SPEED }),
   };
 }
 

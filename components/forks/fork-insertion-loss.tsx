@@ -13,6 +13,8 @@ import { bandLevelTable } from "@/lib/analysis/band-levels";
 import { forkInsertionLoss, pairReceivers, type ForkInsertionLoss } from "@/lib/collaboration/scene-comparison";
 import { useSavedRunPayload } from "@/lib/client/run-queries";
 import type { LineageRun } from "@/lib/http/fork-types";
+import { UnresolvedBandsNote, unresolvedBandsOf } from "@/components/analysis/unresolved-bands-note";
+import type { ExcludedBand } from "@/lib/analysis/band-levels";
 import type { DecodedRun } from "@/lib/run-record/payload";
 
 export interface ComparedRun {
@@ -22,7 +24,7 @@ export interface ComparedRun {
 }
 
 /** The table, or why there is none. */
-function compute(origin: DecodedRun, fork: DecodedRun): ForkInsertionLoss | string {
+function compute(origin: DecodedRun, fork: DecodedRun): (ForkInsertionLoss & { unresolved: ExcludedBand[] }) | string {
   try {
     const octaves = (run: DecodedRun) => bandLevelTable(run.receivers, { bandsPerOctave: 1, weighting: "Z", highestResolvedFrequency: sceneFacts(run).highestResolvedFrequency });
     // "The same place" is the same cell of the coarser grid.
@@ -30,7 +32,10 @@ function compute(origin: DecodedRun, fork: DecodedRun): ForkInsertionLoss | stri
     if (pairs.length === 0) return "No receiver of the fork's run matches one of the origin's run by id, name or place.";
     const result = forkInsertionLoss(octaves(origin), octaves(fork), pairs);
     if (result.bands.length === 0) return "The two runs resolve no octave band in common.";
-    return result;
+    // A band either run leaves out is missing from the comparison: list it once, with that run's reason.
+    const unresolved = new Map<number, ExcludedBand>();
+    for (const run of [origin, fork]) for (const entry of unresolvedBandsOf(run, 1, sceneFacts(run).highestResolvedFrequency)) if (!unresolved.has(entry.band.index)) unresolved.set(entry.band.index, entry);
+    return { ...result, unresolved: [...unresolved.values()].sort((a, b) => a.band.index - b.band.index) };
   } catch (error) {
     return error instanceof Error ? error.message : String(error);
   }
@@ -90,6 +95,7 @@ export function ForkInsertionLossPanel({ origin, fork, originRole, forkRole }: {
               </tbody>
             </table>
           </div>
+          <UnresolvedBandsNote excluded={result.unresolved} />
           <Note>
             dB, octave bands both runs resolve. Levels are compared as band exposure (energy over each whole run){result.durationsDiffer ? "; the runs last differently long, which this allows for as long as the sound has died away in both" : ""}. Receivers without a partner in the other run are left out.
           </Note>

@@ -2,6 +2,8 @@
 // The four charts a notebook chart block draws from loaded saved runs, each with the analysis's own
 // pieces (trace and spectrum charts, band tables and bars, the insertion-loss computation), so a chart in
 // the notebook reads exactly as it did on the run's page when it was added.
+import { UnresolvedBandsNote, unresolvedBandsOf } from "@/components/analysis/unresolved-bands-note";
+import type { ExcludedBand } from "@/lib/analysis/band-levels";
 import { useMemo } from "react";
 
 import { Note } from "@/components/analysis/analysis-controls";
@@ -64,13 +66,22 @@ export function TimeOrSpectrumChart({ quantity, runs, receiverIds }: { quantity:
 interface BandRows {
   bands: readonly FrequencyBand[];
   rows: { receiverId: string; label: string; colour: string; overall: number; values: Float64Array }[];
+  /** Bands left out as not resolved, with the reason (the accuracy estimate's decision). */
+  excluded?: readonly ExcludedBand[];
 }
 
 /** A band table and its bars: the layout the band-level and insertion-loss panels share. */
 function BandValues({ table, unit, quantity, fromZero, ariaLabel, showCentre }: { table: BandRows; unit: string; quantity: string; fromZero?: boolean; ariaLabel: string; showCentre?: boolean }) {
-  if (table.bands.length === 0) return <Note>No band in this range is resolved by the grid.</Note>;
+  if (table.bands.length === 0)
+    return (
+      <>
+        <Note>No band in this range is resolved by the grid.</Note>
+        <UnresolvedBandsNote excluded={table.excluded ?? []} />
+      </>
+    );
   return (
     <>
+      <UnresolvedBandsNote excluded={table.excluded ?? []} />
       <div className="overflow-x-auto">
         <table className="min-w-full border-collapse font-mono text-[12px]">
           <BandTableHead bands={table.bands} showCentre={showCentre} />
@@ -97,6 +108,7 @@ function RunBandLevels({ entry, receiverIds, bandsPerOctave, weighting, showName
       const table = bandLevelTable(chosen, { bandsPerOctave, weighting, highestResolvedFrequency: sceneFacts(entry.run).highestResolvedFrequency });
       return {
         bands: table.bands,
+        excluded: table.excluded,
         rows: table.receivers.map((receiver) => ({ receiverId: receiver.receiverId, label: receiver.label, colour: colourIn(entry.run, receiver.receiverId), overall: sumLevels(receiver.levels), values: receiver.levels })),
       };
     } catch (error) {
@@ -137,6 +149,7 @@ export function InsertionLossChart({ run, reference, receiverIds, bandsPerOctave
     if (typeof table === "string") return table;
     return {
       bands: table.bands,
+      excluded: unresolvedBandsOf(run.run, bandsPerOctave, sceneFacts(run.run).highestResolvedFrequency),
       rows: table.receivers.map((receiver) => ({ receiverId: receiver.receiverId, label: receiver.label, colour: colourIn(run.run, receiver.receiverId), overall: receiver.overall, values: receiver.insertionLoss })),
     };
   }, [run.run, reference.run, receiverIds, bandsPerOctave, weighting]);

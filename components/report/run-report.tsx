@@ -17,6 +17,9 @@ import type { RunRecord, StudyRecord } from "@/lib/http/api-types";
 import type { DecodedRun } from "@/lib/run-record/payload";
 import { bandHeading } from "@/components/sweeps/model/sweep-table";
 import { ReportReviewBlock, reportReviewSentence } from "@/components/review/report-review-block";
+import { QualityEvidence } from "@/components/verification/quality-evidence";
+import { ReportAccuracySection } from "@/components/accuracy/report-accuracy-section";
+import { resolvedFrequencyLimit } from "@/lib/analysis/accuracy";
 import { referenceCandidates, runBandLevels, runInsertionLoss, settingsRows, treatmentRows } from "./model/report-model";
 import { SceneFigure, SceneFigureKey } from "./scene-figure";
 
@@ -208,7 +211,7 @@ function InsertionLossPart({ run, decoded, referenceId, highestResolvedFrequency
 
 function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyRecord; run: RunRecord; decoded: DecodedRun; scene: Scene; referenceId: string | null }) {
   const grid = useMemo(() => deriveGrid(scene), [scene]);
-  const bandLevels = useMemo(() => runBandLevels(decoded, grid.maxResolvedFrequency), [decoded, grid.maxResolvedFrequency]);
+  const bandLevels = useMemo(() => runBandLevels(decoded, resolvedFrequencyLimit(grid)), [decoded, grid]);
   const treatments = treatmentRows(scene);
   const summary = run.summary;
   const header = decoded.header;
@@ -286,13 +289,14 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
         )}
       </Section>
 
+      <ReportAccuracySection decoded={decoded} />
       <Section title="Levels at the receivers" id="report-levels">
         {!bandLevels.ok ? (
           <ErrorState title="No band levels" message={bandLevels.message} />
         ) : (
           <>
             <p className="text-sm text-ink-soft">
-              Energy-equivalent levels over the {figure(bandLevels.value.averagingTime * 1000)} ms simulated, dB re 20 µPa, unweighted, in the octave bands the grid resolves (up to {figure(grid.maxResolvedFrequency)} Hz). Peak levels from the run summary.
+              Energy-equivalent levels over the {figure(bandLevels.value.averagingTime * 1000)} ms simulated, dB re 20 µPa, unweighted, in the octave bands the grid resolves (up to {figure(resolvedFrequencyLimit(grid))} Hz). Peak levels from the run summary.
             </p>
             <ReceiverBandTable
               bands={bandLevels.value.bands}
@@ -319,7 +323,7 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
       <Section title="Insertion loss" id="report-insertion-loss">
         <ReferencePicker run={run} studyId={study.id} referenceId={referenceId} />
         {referenceId ? (
-          <InsertionLossPart run={run} decoded={decoded} referenceId={referenceId} highestResolvedFrequency={grid.maxResolvedFrequency} />
+          <InsertionLossPart run={run} decoded={decoded} referenceId={referenceId} highestResolvedFrequency={resolvedFrequencyLimit(grid)} />
         ) : (
           <p className="text-sm text-muted">No reference run chosen, so no insertion loss is reported.</p>
         )}
@@ -335,6 +339,7 @@ function ReportBody({ study, run, decoded, scene, referenceId }: { study: StudyR
         />
         <ReportReviewBlock run={run} />
       </Section>
+      <QualityEvidence run={run} variant="report" />
     </>
   );
 }

@@ -3,7 +3,7 @@
 // watches: steps, simulated time, cell updates per second, time left. A finished run can be saved.
 import { useQueryClient } from "@tanstack/react-query";
 import { useParams } from "next/navigation";
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { RunSaveControl, type RunSaveSource } from "@/components/runs/run-save-control";
 import { Button } from "@/components/ui/button";
 import { ErrorState } from "@/components/ui/states";
@@ -55,6 +55,7 @@ export function RunPanel({
   onResume,
   onCancel,
   source,
+  serverRun,
 }: {
   state: BrowserRunState;
   canRun: boolean;
@@ -64,6 +65,8 @@ export function RunPanel({
   onCancel: () => void;
   /** What the next run is made from; without it, the scene page's cached scene at the moment the run starts. */
   source?: RunSaveSource | null;
+  /** The scene page's "Run on the server" action, beside the browser's run controls (it lays out in their row). */
+  serverRun?: ReactNode;
 }) {
   const { phase, progress } = state;
   const cachedSource = useCachedSceneSource();
@@ -101,6 +104,7 @@ export function RunPanel({
             </Button>
           </>
         )}
+        {serverRun}
         <span data-testid="run-phase" className="text-sm font-medium text-ink-soft">
           {phaseLabels[phase]}
         </span>

@@ -5,6 +5,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo } from "react";
+import { RunAccuracySection } from "@/components/accuracy/run-accuracy-section";
 import { RunAnalysis } from "@/components/analysis/run-analysis";
 import { StudyLiveStrip } from "@/components/live/study-live-strip";
 import { RunDiscussionSection } from "@/components/comments/run-discussion";
@@ -16,6 +17,7 @@ import { RunStatusBadge } from "@/components/runs/run-status-badge";
 import { formatWallTime } from "@/components/runs/run-table-model";
 import { formatBytes } from "@/components/scenes/grid-figures";
 import { FieldReplay } from "@/components/scenes/run-viewer";
+import { QualityEvidence } from "@/components/verification/quality-evidence";
 import { RoleBadge } from "@/components/studies/role-badge";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { Button } from "@/components/ui/button";
@@ -68,6 +70,7 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
         </div>
         <aside className="flex flex-col gap-6">
           <ReviewPanel run={run} role={role} callerId={callerId} />
+          <QualityEvidence run={run} variant="panel" />
           <section aria-labelledby="figures-heading" className="flex flex-col gap-3">
             <h2 id="figures-heading" className="text-base font-semibold text-ink">
               Grid and figures
@@ -86,6 +89,12 @@ export function SavedRunPage({ studyId, runId, callerId }: { studyId: string; ru
           </section>
         </aside>
       </div>
+      <section aria-labelledby="accuracy-heading" className="flex flex-col gap-3">
+        <h2 id="accuracy-heading" className="text-base font-semibold text-ink">
+          Accuracy
+        </h2>
+        {payload.data ? <RunAccuracySection run={payload.data} /> : payload.isError ? <p className="text-sm text-muted">Shown once the stored result can be read.</p> : <LoadingRows rows={1} label="Loading the accuracy estimate" />}
+      </section>
       {/* Full width: the band and insertion-loss tables need the room. */}
       <section aria-labelledby="analysis-heading" className="flex flex-col gap-3">
         <h2 id="analysis-heading" className="text-base font-semibold text-ink">

@@ -5,6 +5,7 @@ import { useEffect, useMemo, useState } from "react";
 import { ForkActions } from "@/components/forks/fork-actions";
 import { LineagePanel } from "@/components/forks/lineage-panel";
 import { StudyLiveStrip } from "@/components/live/study-live-strip";
+import { ServerRunAction } from "@/components/queue/server-run-action";
 import { RunPanel } from "@/components/run/run-panel";
 import { rememberSessionRun } from "@/components/run/session-runs";
 import { useBrowserRun } from "@/components/run/use-browser-run";
@@ -113,6 +114,7 @@ export function SceneWorkspace({ studyId, sceneId }: { studyId: string; sceneId:
                 onPause={run.pause}
                 onResume={run.resume}
                 onCancel={run.cancel}
+                serverRun={<ServerRunAction studyId={studyId} sceneId={current.id} sceneVersion={current.version} unsavedEdits={unsavedEdits} canRun={roleAllows(role, "run:create")} />}
               />
             </div>
             <div className="rounded-lg border border-rule bg-panel p-3">

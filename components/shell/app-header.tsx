@@ -14,7 +14,11 @@ function initials(name: string): string {
     .join("");
 }
 
-const navigation = [{ href: "/dashboard", label: "Studies" }];
+/** Each link is current on the paths it names (a study's pages belong to "Studies"). */
+const navigation = [
+  { href: "/dashboard", label: "Studies", paths: ["/dashboard", "/studies"] },
+  { href: "/verification", label: "Verification", paths: ["/verification"] },
+];
 
 export function AppHeader({ userName, userEmail }: { userName: string; userEmail: string }) {
   const pathname = usePathname();
@@ -26,7 +30,7 @@ export function AppHeader({ userName, userEmail }: { userName: string; userEmail
         </Link>
         <nav aria-label="Main" className="flex items-center gap-1 text-sm">
           {navigation.map((item) => {
-            const active = pathname === item.href || pathname.startsWith("/studies");
+            const active = item.paths.some((path) => pathname === path || pathname.startsWith(`${path}/`));
             return (
               <Link
                 key={item.href}
@@ -39,6 +43,13 @@ export function AppHeader({ userName, userEmail }: { userName: string; userEmail
             );
           })}
           <TeamNavLink />
+          <Link
+            href="/api-docs"
+            aria-current={pathname.startsWith("/api-docs") ? "page" : undefined}
+            className={`rounded-md px-3 py-1.5 font-medium transition-colors ${pathname.startsWith("/api-docs") ? "bg-white/12 text-white" : "text-white/70 hover:text-white"}`}
+          >
+            API
+          </Link>
         </nav>
         <div className="ml-auto flex items-center gap-4">
           <TeamSwitcher />
@@ -53,6 +64,13 @@ export function AppHeader({ userName, userEmail }: { userName: string; userEmail
               <p className="text-xs text-white/60">{userEmail}</p>
             </div>
           </div>
+          <Link
+            href="/settings/tokens"
+            aria-current={pathname.startsWith("/settings/tokens") ? "page" : undefined}
+            className="rounded-md px-2.5 py-1.5 text-sm text-white/70 hover:bg-white/10 hover:text-white"
+          >
+            API tokens
+          </Link>
           <Link href="/sign-out" className="rounded-md px-2.5 py-1.5 text-sm text-white/70 hover:bg-white/10 hover:text-white">
             Sign out
           </Link>

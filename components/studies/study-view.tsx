@@ -10,6 +10,7 @@ import { StudyLiveStrip } from "@/components/live/study-live-strip";
 import { RoleBadge } from "./role-badge";
 import { StudyNotebook } from "@/components/notebook/study-notebook";
 import { StudyRuns } from "@/components/runs/study-runs";
+import { StudyQueuePanel } from "@/components/queue/study-queue-panel";
 import { ShareLinksPanel } from "@/components/share-links/share-links-panel";
 
 export function StudyView({ studyId }: { studyId: string }) {
@@ -52,6 +53,7 @@ export function StudyView({ studyId }: { studyId: string }) {
           <ShareLinksPanel studyId={study.id} role={role} />
         </aside>
       </div>
+      <StudyQueuePanel studyId={study.id} role={role} />
       <StudyRuns studyId={study.id} />
     </div>
   );

@@ -1,7 +1,8 @@
 "use client";
 // The sweeps page: choose a scene of the study, a parameter and its range, the reference and the bands;
-// see how many runs that makes and about how long they take; run them here in the browser; read the
-// insertion loss per band against the parameter; keep it in the notebook.
+// see how many runs that makes and about how long they take; run them here in the browser or send them
+// to the server's workers; read the insertion loss per band against the parameter; keep it in the notebook.
+import { RESOLVED_POINTS_PER_WAVELENGTH, resolvedFrequencyLimit } from "@/lib/analysis/accuracy";
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
@@ -10,7 +11,10 @@ import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { Button } from "@/components/ui/button";
 import { EmptyState, ErrorState, LoadingRows } from "@/components/ui/states";
 import { roleAllows, type TeamRole } from "@/lib/access/roles";
-import { fetchJson } from "@/lib/client/api";
+import { ServerSweepStatus } from "@/components/queue/server-sweep-status";
+import { refusalWords } from "@/components/queue/model/queue-words";
+import { ApiError, fetchJson } from "@/lib/client/api";
+import { useQueueSweep, type SweepAnswer } from "@/lib/client/job-queries";
 import { queryKeys, useBlocks, useStudy } from "@/lib/client/queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene, type Scene } from "@/lib/fdtd/scene";
@@ -86,6 +90,10 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
   const client = useQueryClient();
   const canRun = roleAllows(role, "run:create") && roleAllows(role, "study:edit");
   const running = state.status.phase === "running";
+  // Where the runs step: here (the page must stay open) or on the team's workers (it may be closed).
+  const [where, setWhere] = useState<"browser" | "server">("browser");
+  const queueSweep = useQueueSweep(record.id);
+  const [serverSweep, setServerSweep] = useState<SweepAnswer | null>(null);
 
   const choice = choices.find((c) => c.key === form.parameterKey);
   const range = { from: Number(form.from), to: Number(form.to), step: Number(form.step) };
@@ -153,7 +161,11 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
       weighting: form.aWeighted ? "A" : "Z",
       receiverIds: form.receiverIds,
     };
-    void start({ plan, definition, receivers: receivers.filter((r) => form.receiverIds.includes(r.id)), highestResolvedFrequency: grid.maxResolvedFrequency });
+    if (where === "server") {
+      queueSweep.mutate({ definition }, { onSuccess: (answer) => setServerSweep(answer) });
+      return;
+    }
+    void start({ plan, definition, receivers: receivers.filter((r) => form.receiverIds.includes(r.id)), highestResolvedFrequency: resolvedFrequencyLimit(grid) });
   };
 
   const results = state.results;
@@ -282,7 +294,7 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
                 A-weighted
               </label>
             </div>
-            <p className="text-sm text-muted">Bands up to {Math.round(grid.maxResolvedFrequency)} Hz, the highest frequency this grid resolves.</p>
+            <p className="text-sm text-muted">Bands up to {Math.round(resolvedFrequencyLimit(grid))} Hz, the highest frequency this grid resolves ({RESOLVED_POINTS_PER_WAVELENGTH} cells per wavelength at the upper edge); the rest are listed as left out with the reason.</p>
           </fieldset>
 
           <fieldset className="flex flex-col gap-2">
@@ -306,7 +318,25 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
           </fieldset>
 
           <div className="mt-auto flex flex-col gap-3 rounded-md bg-paper px-4 py-3">
-            {plan ? (
+            {canRun ? (
+              <fieldset className="flex flex-col gap-1.5">
+                <legend className="mb-1 text-sm font-medium text-ink-soft">Where to run</legend>
+                <label className="flex items-center gap-2 text-sm text-ink">
+                  <input type="radio" name="sweep-where" checked={where === "browser"} onChange={() => setWhere("browser")} />
+                  In this browser (keep the page open until it ends)
+                </label>
+                <label className="flex items-center gap-2 text-sm text-ink">
+                  <input type="radio" name="sweep-where" checked={where === "server"} onChange={() => setWhere("server")} />
+                  On the server (the team&apos;s workers share the runs; you may close the browser)
+                </label>
+              </fieldset>
+            ) : null}
+            {plan && where === "server" ? (
+              <p className="text-sm text-ink-soft" data-testid="sweep-estimate">
+                <span className="font-medium text-ink">{plan.caseCount} cases</span> and {plan.referenceCount === 1 ? "1 reference" : `${plan.referenceCount} references`}: {plan.runs.length} runs of {(plan.cellUpdatesPerRun / 1e6).toPrecision(3)} million cell updates each, from saved version{" "}
+                {record.version}, queued for the team&apos;s workers. The time left shows once a worker starts; the chart is written into the notebook when the last run ends.
+              </p>
+            ) : plan ? (
               <p className="text-sm text-ink-soft" data-testid="sweep-estimate">
                 <span className="font-medium text-ink">{plan.caseCount} cases</span> and {plan.referenceCount === 1 ? "1 reference" : `${plan.referenceCount} references`}: {plan.runs.length} runs of {(plan.cellUpdatesPerRun / 1e6).toPrecision(3)} million cell updates each.
                 Estimated time <span className="font-medium text-ink">{formatEstimate(estimatedSeconds(plan, rate))}</span> at {formatRate(rate)} ({rateSource}). An estimate only.
@@ -316,8 +346,8 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
             )}
             {canRun ? (
               <div className="flex gap-2">
-                <Button type="submit" disabled={!plan || Boolean(receiverError) || running}>
-                  Run the sweep
+                <Button type="submit" disabled={!plan || Boolean(receiverError) || running || queueSweep.isPending}>
+                  {where === "server" ? (queueSweep.isPending ? "Queueing…" : "Send the sweep to the server") : "Run the sweep"}
                 </Button>
               </div>
             ) : (
@@ -327,6 +357,10 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
         </fieldset>
       </form>
 
+      {where === "server" && queueSweep.isError ? (
+        <ErrorState title="The sweep was not queued" message={queueSweep.error instanceof ApiError ? refusalWords(queueSweep.error) : queueSweep.error.message} />
+      ) : null}
+      {serverSweep ? <ServerSweepStatus key={serverSweep.sweep.id} studyId={studyId} queued={serverSweep} canCancel={canRun} /> : null}
       {state.status.phase === "running" ? (
         <SweepProgress status={state.status} runCount={state.job?.plan.runs.length ?? 0} cellUpdatesPerRun={state.job?.plan.cellUpdatesPerRun ?? 0} caseCount={state.job?.plan.caseCount ?? 0} unit={state.job?.definition.unit ?? ""} label={state.job?.definition.parameterLabel ?? ""} onCancel={cancel} />
       ) : null}
@@ -443,7 +477,7 @@ export function SweepWorkbench({ studyId, sceneId, fromBlockId }: { studyId: str
         />
         <h1 className="mt-2 text-[28px] leading-tight font-semibold text-ink">Parameter sweep</h1>
         <p className="mt-2 max-w-3xl text-[15px] leading-relaxed text-ink-soft">
-          Step one quantity of a scene over a range, run every case here in your browser, and compare each with a reference to read the insertion loss per band.
+          Step one quantity of a scene over a range, run every case here in your browser or on the server&apos;s workers, and compare each with a reference to read the insertion loss per band.
         </p>
       </div>
       {fromBlockId && !fromBlock ? <ErrorState title="That sweep was not found" message="The notebook has no sweep block with this id; start from a scene below." /> : null}

@@ -4,7 +4,7 @@ import "server-only";
 import { desc, eq, sql } from "drizzle-orm";
 import type { RunListFigures, RunListItem, RunRecord } from "@/lib/http/api-types";
 import type { RunSummary } from "@/lib/run-record/summary";
-import { getDb } from "../client";
+import { getDb, type Database } from "../client";
 import { activity, run, scene, study, user, type RunStatus } from "../schema";
 import { attachSignOffs } from "./reviews";
 import { activityRow, publishActivity } from "./activity";
@@ -48,8 +48,14 @@ export interface NewRun {
   sceneName: string;
 }
 
-/** Stores a checked run and its activity entry in one transaction: if either fails, neither is kept. */
-export async function createRun(input: NewRun): Promise<RunRecord> {
+export type DatabaseTransaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/**
+ * Stores a checked run and its activity entry in one transaction: if either fails, neither is kept.
+ * `inTransaction` runs last in that transaction, after the run's row is in (a server run locks its job
+ * there and links the run to it); whatever it throws leaves nothing stored.
+ */
+export async function createRun(input: NewRun, options: { inTransaction?: (tx: DatabaseTransaction, runId: string) => Promise<void> } = {}): Promise<RunRecord> {
   const runId = newId();
   const saved = activityRow({
     teamId: input.teamId,
@@ -80,6 +86,7 @@ export async function createRun(input: NewRun): Promise<RunRecord> {
         createdBy: input.createdBy,
       });
       await tx.insert(activity).values(saved);
+      await options.inTransaction?.(tx, runId);
     });
     return runId;
   });

@@ -19,6 +19,8 @@ export const teamActions = [
   "comment:moderate",
   "study:share",
   "team:read-mail",
+  "verification:record",
+  "run:attach-evidence",
 ] as const;
 export type TeamAction = (typeof teamActions)[number];
 
@@ -28,11 +30,13 @@ const readOnly: TeamAction[] = ["team:read", "study:read"];
  * role -> permitted actions. Reviewers comment and sign off but never edit what they review.
  * Authors edit and delete their own comments whatever their role; "comment:moderate" lets owners
  * remove anyone's. Forking needs study:read on the origin and scene:edit where the fork goes.
+ * Saving verification results and attaching them to a run as quality evidence is for those who edit
+ * or review runs; viewers only read them.
  */
 export const permissionsByRole: Record<TeamRole, ReadonlySet<TeamAction>> = {
   owner: new Set<TeamAction>(teamActions),
-  editor: new Set<TeamAction>([...readOnly, "study:create", "study:edit", "scene:edit", "run:create", "run:comment", "run:request-review"]),
-  reviewer: new Set<TeamAction>([...readOnly, "run:comment", "run:review"]),
+  editor: new Set<TeamAction>([...readOnly, "study:create", "study:edit", "scene:edit", "run:create", "run:comment", "run:request-review", "verification:record", "run:attach-evidence"]),
+  reviewer: new Set<TeamAction>([...readOnly, "run:comment", "run:review", "verification:record", "run:attach-evidence"]),
   viewer: new Set<TeamAction>(readOnly),
 };
 

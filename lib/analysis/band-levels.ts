@@ -66,7 +66,7 @@ export interface BandLevelTable {
  * A band narrower than the trace's frequency resolution 1 / T cannot be told apart from its neighbours:
  * its energy would come from one or two natural bins smeared over the band edges.
  */
-function exclusionOf(band: FrequencyBand, highestResolved: number, nyquist: number, resolution: number): ExcludedBand | undefined {
+export function exclusionOf(band: FrequencyBand, highestResolved: number, nyquist: number, resolution: number): ExcludedBand | undefined {
   const hz = (f: number) => `${f >= 100 ? f.toFixed(0) : f.toPrecision(3)} Hz`;
   if (band.upper > nyquist) {
     return { band, reason: "above-nyquist", message: `upper edge ${hz(band.upper)} is above the Nyquist frequency ${hz(nyquist)}` };

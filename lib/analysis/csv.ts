@@ -1,6 +1,6 @@
 // CSV text for the analysis exports: RFC 4180 quoting, a dot as the decimal mark whatever the browser's
 // locale, and units in the header row, so a spreadsheet or a script reads the numbers back unchanged.
-import type { BandLevelTable } from "./band-levels";
+import type { BandLevelTable, ExcludedBand } from "./band-levels";
 import type { FrequencyBand } from "./bands";
 import type { InsertionLossTable } from "./insertion-loss";
 
@@ -80,15 +80,22 @@ export function bandLevelsCsv(table: BandLevelTable, options: { levels?: readonl
     const overall = options.levels ? 10 * Math.log10(sum) : receiver.overall;
     rows.push([receiver.label || receiver.receiverId, formatCsvFixed(overall, 2), ...Array.from(levels, (level) => formatCsvFixed(level, 2))]);
   });
+  rows.push(...unresolvedBandLines(table.excluded));
   if (options.note) rows.push([`# ${options.note}`]);
   return toCsv(rows);
 }
 
+/** One comment line per band left out of the columns, with the reason, so a reader of the file knows the gap is deliberate. */
+export function unresolvedBandLines(excluded: readonly ExcludedBand[]): CsvCell[][] {
+  return excluded.map((entry) => [`# not resolved, left out: ${entry.band.nominal} Hz band (${entry.message})`]);
+}
+
 /** Insertion loss, one row per receiver: "receiver", "overall (dB)", one "(dB)" column per band; positive lowers the level. */
-export function insertionLossCsv(table: InsertionLossTable): string {
+export function insertionLossCsv(table: InsertionLossTable, excluded: readonly ExcludedBand[] = []): string {
   const rows: CsvCell[][] = [["receiver", "overall insertion loss (dB)", ...table.bands.map((band) => `${bandColumnHeading(band)} insertion loss (dB)`)]];
   for (const receiver of table.receivers) {
     rows.push([receiver.label || receiver.receiverId, formatCsvFixed(receiver.overall, 2), ...Array.from(receiver.insertionLoss, (value) => formatCsvFixed(value, 2))]);
   }
+  rows.push(...unresolvedBandLines(excluded));
   return toCsv(rows);
 }

@@ -31,6 +31,24 @@ function retryDelayMs(attempt: number): number {
   return Math.min(60_000, 2_000 * 2 ** attempt);
 }
 
+/** What a job event says: which job, and the state it is now in (progress sends "running" again). */
+export interface JobStreamMessage {
+  jobId: string;
+  sweepId: string | null;
+  state: string;
+}
+
+function parseJob(data: string): JobStreamMessage | null {
+  try {
+    const parsed: unknown = JSON.parse(data);
+    if (!parsed || typeof parsed !== "object") return null;
+    const { jobId, sweepId, state } = parsed as Record<string, unknown>;
+    return typeof jobId === "string" && typeof state === "string" ? { jobId, sweepId: typeof sweepId === "string" ? sweepId : null, state } : null;
+  } catch {
+    return null;
+  }
+}
+
 function parseActivity(data: string): ActivityStreamMessage | null {
   try {
     const parsed: unknown = JSON.parse(data);
@@ -43,6 +61,8 @@ function parseActivity(data: string): ActivityStreamMessage | null {
 interface StreamHandlers {
   onActivity: (message: ActivityStreamMessage) => void;
   onPresence: () => void;
+  /** A server-side run changed state or progressed (study streams only). */
+  onJob?: (message: JobStreamMessage) => void;
   /** After a reconnect: events may have been missed, so everything shown is refetched. */
   onReconnect: () => void;
 }
@@ -51,6 +71,7 @@ function useEventStream(url: string | null, handlers: StreamHandlers): LiveStatu
   const [status, setStatus] = useState<LiveStatus>("connecting");
   const onActivity = useEffectEvent(handlers.onActivity);
   const onPresence = useEffectEvent(handlers.onPresence);
+  const onJob = useEffectEvent((message: JobStreamMessage) => handlers.onJob?.(message));
   const onReconnect = useEffectEvent(handlers.onReconnect);
 
   useEffect(() => {
@@ -84,6 +105,10 @@ function useEventStream(url: string | null, handlers: StreamHandlers): LiveStatu
         if (message) onActivity(message);
       });
       current.addEventListener("presence", () => onPresence());
+      current.addEventListener("job", (event) => {
+        const message = parseJob((event as MessageEvent<string>).data);
+        if (message) onJob(message);
+      });
       current.addEventListener("closed", () => {
         // The server withdrew access: reconnecting would only be refused.
         stopped = true;
@@ -179,6 +204,12 @@ export function useStudyLiveUpdates(studyId: string, options: StudyLiveOptions =
       offer(message);
     },
     onPresence: () => void client.invalidateQueries({ queryKey: ["studies", studyId, "presence"] }),
+    onJob: (message) => {
+      // Progress arrives every few seconds per job: only the queue refetches. A completed job has
+      // saved a run or finished a sweep's chart block, so then the whole study (runs, notebook) does.
+      if (message.state === "completed") void client.invalidateQueries({ queryKey: ["studies", studyId] });
+      else void client.invalidateQueries({ queryKey: ["studies", studyId, "jobs"] });
+    },
     onReconnect: () => {
       void client.invalidateQueries({ queryKey: ["studies", studyId] });
       void client.invalidateQueries({ queryKey: ["runs"] });

@@ -70,6 +70,13 @@ function scenePart(item: SentenceInput, fallbackName: string | null): SentencePa
   return href ? { text: name, href } : { text: name };
 }
 
+/** The scene and version a server run was queued from, by name (a job has no page of its own). */
+function serverRunScene(item: SentenceInput): SentencePart {
+  const name = text(item.detail.sceneName) ?? "a scene";
+  const version = count(item.detail.sceneVersion);
+  return { text: `${name}${version !== null ? `, version ${version}` : ""}` };
+}
+
 function blockKind(value: unknown): string {
   const kind = text(value);
   if (kind === "notes") return "a notes block";
@@ -159,6 +166,16 @@ function describeParts(item: SentenceInput): { parts: SentencePart[]; namesStudy
                 : [{ text: "set " }, run, { text: ` to ${stateLabel(to) ?? "a new review state"}` }];
       return { parts: withExcerpt(parts, detail.note), namesStudy: false };
     }
+    case "verification.recorded": {
+      const passed = count(detail.passedCount);
+      const failed = count(detail.failedCount);
+      const tally = passed !== null && failed !== null ? ` (${passed} of ${passed + failed} cases passed)` : "";
+      return { parts: [{ text: "saved " }, { text: "verification results", href: "/verification" }, { text: tally }], namesStudy: true };
+    }
+    case "run.evidence_attached":
+      return { parts: [{ text: "attached verification results to " }, runPart(item), { text: " as quality evidence" }], namesStudy: false };
+    case "run.evidence_detached":
+      return { parts: [{ text: "detached verification results from " }, runPart(item)], namesStudy: false };
     case "member.invited": {
       const role = text(detail.role);
       return { parts: [{ text: `invited ${text(detail.email) ?? "someone"} to the team${role ? ` as ${article(role)}` : ""}` }], namesStudy: true };
@@ -187,6 +204,42 @@ function describeParts(item: SentenceInput): { parts: SentencePart[]; namesStudy
     case "share_link.revoked": {
       const label = text(detail.label);
       return { parts: [{ text: "revoked a read-only link to " }, studyLink, { text: label ? ` (${label})` : "" }], namesStudy: true };
+    }
+    case "api_token.created": {
+      const name = text(detail.name);
+      const role = text(detail.role);
+      return { parts: [{ text: `made an API token${name ? ` ${quote(name)}` : ""} for scripts in the team${role ? `, acting at most as ${article(role)}` : ""}` }], namesStudy: true };
+    }
+    case "api_token.revoked": {
+      const name = text(detail.name);
+      return { parts: [{ text: `revoked the API token${name ? ` ${quote(name)}` : ""}` }], namesStudy: true };
+    }
+    case "job.queued":
+      return { parts: [{ text: "queued a server run of " }, serverRunScene(item)], namesStudy: false };
+    case "job.completed":
+      return { parts: [{ text: "ran " }, runPart(item), { text: " on the server" }], namesStudy: false };
+    case "job.failed": {
+      const attempts = count(detail.attempts);
+      const reason = text(detail.message);
+      return {
+        parts: [{ text: "could not run " }, serverRunScene(item), { text: ` on the server${attempts !== null ? ` after ${attempts} attempt${attempts === 1 ? "" : "s"}` : ""}` }, { text: reason ? `: ${quote(reason, 120)}` : "" }],
+        namesStudy: false,
+      };
+    }
+    case "job.cancelled":
+      return { parts: [{ text: `cancelled ${detail.whileRunning === true ? "the running" : "a queued"} server run of ` }, serverRunScene(item)], namesStudy: false };
+    case "sweep.queued": {
+      const label = text(detail.label);
+      return { parts: [{ text: `queued a server sweep${label ? ` (${label})` : ""} of ` }, serverRunScene(item)], namesStudy: false };
+    }
+    case "sweep.completed": {
+      const label = text(detail.label) ?? "a sweep";
+      const state = text(detail.state);
+      const note = text(detail.message);
+      if (state === "failed" || state === "cancelled") {
+        return { parts: [{ text: `ran the server sweep ${label}, which ${state === "failed" ? "failed" : "was cancelled"}` }, { text: note ? `: ${note}` : "" }], namesStudy: false };
+      }
+      return { parts: [{ text: `ran the server sweep ${label}; its insertion-loss chart is in the notebook` }, { text: note ? ` (${note})` : "" }], namesStudy: false };
     }
     default:
       return { parts: [{ text: `did ${item.action.replace(/[._]/g, " ")}` }], namesStudy: false };

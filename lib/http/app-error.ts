@@ -7,6 +7,8 @@ export const errorKinds = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  /** A quota of the team is used up (queued runs): 409 like a conflict, told apart by its code. */
+  limit: 409,
   payload_too_large: 413,
   rate_limited: 429,
   internal: 500,

@@ -27,9 +27,20 @@ export const liveEventSchema = z.discriminatedUnion("kind", [
     studyId: z.string(),
     at: z.string(),
   }),
+  /** A server-side run changed state or progressed (progress at most every ~2 s per job). */
+  z.object({
+    kind: z.literal("job"),
+    teamId: z.string(),
+    studyId: z.string(),
+    jobId: z.string(),
+    sweepId: z.string().nullable(),
+    state: z.enum(["queued", "running", "completed", "failed", "cancelled"]),
+    at: z.string(),
+  }),
 ]);
 export type LiveEvent = z.infer<typeof liveEventSchema>;
 export type ActivityLiveEvent = Extract<LiveEvent, { kind: "activity" }>;
+export type JobLiveEvent = Extract<LiveEvent, { kind: "job" }>;
 
 /** Parses a NOTIFY payload; anything malformed is dropped rather than sent to pages. */
 export function parseLiveEvent(payload: string): LiveEvent | null {

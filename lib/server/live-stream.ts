@@ -5,13 +5,13 @@
 import "server-only";
 import { getFeedItemById } from "@/db/queries/activity";
 import type { ActivityStreamMessage, FeedItem } from "@/lib/http/activity-types";
-import type { ActivityLiveEvent, LiveEvent } from "@/lib/live/live-event";
+import type { ActivityLiveEvent, JobLiveEvent, LiveEvent } from "@/lib/live/live-event";
 import { subscribeToLiveEvents } from "./live-hub";
 
 export const livePingIntervalMs = 20_000;
 
 export interface StreamMessage {
-  event: "activity" | "presence";
+  event: "activity" | "presence" | "job";
   id: string;
   data: unknown;
 }
@@ -171,4 +171,9 @@ export async function activityMessage(event: ActivityLiveEvent): Promise<StreamM
 /** Membership changes in the team: the stream checks the caller's access at once. */
 export function isMembershipChange(event: LiveEvent, teamId: string): boolean {
   return event.kind === "activity" && event.teamId === teamId && (event.action.startsWith("member.") || event.action === "invitation.revoked");
+}
+
+/** A server-side run's change, as study streams forward it: which job, its sweep, its state now. */
+export function jobMessage(event: JobLiveEvent): StreamMessage {
+  return { event: "job", id: `job-${event.jobId}-${event.at}`, data: { jobId: event.jobId, sweepId: event.sweepId, state: event.state, at: event.at } };
 }

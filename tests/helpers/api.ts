@@ -12,11 +12,14 @@ export interface CallOptions<Params> {
   body?: unknown;
   rawBody?: string;
   cookie?: string;
+  /** An Authorization header, e.g. "Bearer rft_…" (a script's call). */
+  authorization?: string;
 }
 
 export async function callRoute<Params>(handler: RouteHandler<Params>, options: CallOptions<Params>): Promise<Response> {
   const headers = new Headers({ origin: testOrigin });
   if (options.cookie) headers.set("cookie", options.cookie);
+  if (options.authorization) headers.set("authorization", options.authorization);
   let body: string | undefined = options.rawBody;
   if (options.body !== undefined) {
     body = JSON.stringify(options.body);

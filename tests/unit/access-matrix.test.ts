@@ -20,6 +20,8 @@ const expected: Record<TeamAction, string> = {
   "comment:moderate":     "y     -      -        -",
   "study:share":          "y     -      -        -",
   "team:read-mail":       "y     -      -        -",
+  "verification:record":  "y     y      y        -",
+  "run:attach-evidence":  "y     y      y        -",
 };
 
 function expectedFor(role: TeamRole, action: TeamAction): "allow" | "forbidden" {

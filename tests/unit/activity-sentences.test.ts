@@ -61,7 +61,12 @@ describe("activity sentences", () => {
       [{ action: "member.removed", studyId: null, subjectId: "priya", detail: { memberName: "Priya Raman", left: true } }, "Priya Raman left the team"],
       [{ action: "invitation.revoked", studyId: null, detail: { email: "alex@example.org" } }, "Priya Raman withdrew the invitation to alex@example.org"],
       [{ action: "share_link.created", detail: { label: "For the client" } }, "Priya Raman made a read-only link to Station Road barrier (For the client)"],
+      [{ action: "verification.recorded", subjectType: "verification", subjectId: "v1", studyId: null, studyTitle: null, detail: { passedCount: 6, failedCount: 1 } }, "Priya Raman saved verification results (6 of 7 cases passed)"],
+      [{ ...onRun, action: "run.evidence_attached", subjectType: "run", subjectId: runId, detail: { verificationId: "v1" } }, "Priya Raman attached verification results to the run of Barrier 3 m, version 4 as quality evidence"],
+      [{ ...onRun, action: "run.evidence_detached", subjectType: "run", subjectId: runId, detail: { verificationId: "v1" } }, "Priya Raman detached verification results from the run of Barrier 3 m, version 4"],
       [{ action: "share_link.revoked", detail: {} }, "Priya Raman revoked a read-only link to Station Road barrier"],
+      [{ action: "api_token.created", studyId: null, detail: { name: "Nightly sweep", role: "editor" } }, "Priya Raman made an API token “Nightly sweep” for scripts in the team, acting at most as an editor"],
+      [{ action: "api_token.revoked", studyId: null, detail: { name: "Nightly sweep" } }, "Priya Raman revoked the API token “Nightly sweep”"],
     ];
     for (const [overrides, expected] of cases) expect(says(overrides)).toBe(expected);
   });

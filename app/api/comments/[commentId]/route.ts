@@ -27,8 +27,9 @@ export const GET = apiRoute<Context>(async (request, { params }) => {
 export const PATCH = apiRoute<Context>(async (request, { params }) => {
   const commentId = parseWith(idSchema, (await params).commentId, "comment");
   const caller = await requireCaller(request.headers);
-  // Authors edit their own words whatever their role now; any member may reach the check.
-  const { comment, run } = await requireCommentAccess({ caller, commentId, action: "study:read" });
+  // Authors edit their own words whatever their role now; any member may reach the check. A token
+  // must also be scoped to comment: a read-only token writes nothing.
+  const { comment, run } = await requireCommentAccess({ caller, commentId, action: caller.token ? "run:comment" : "study:read" });
   if (comment.authorId !== caller.userId) throw new AppError("forbidden:comment", "Only its author can edit a comment.");
   if (comment.deletedAt) throw new AppError("conflict:comment", "This comment has been deleted; it can no longer be edited.");
   const input = await parseJsonBody(request, commentEditSchema, "comment");
@@ -44,7 +45,7 @@ export const PATCH = apiRoute<Context>(async (request, { params }) => {
 export const DELETE = apiRoute<Context>(async (request, { params }) => {
   const commentId = parseWith(idSchema, (await params).commentId, "comment");
   const caller = await requireCaller(request.headers);
-  const { comment, run, role } = await requireCommentAccess({ caller, commentId, action: "study:read" });
+  const { comment, run, role } = await requireCommentAccess({ caller, commentId, action: caller.token ? "run:comment" : "study:read" });
   const isAuthor = comment.authorId === caller.userId;
   if (!isAuthor && !roleAllows(role, "comment:moderate")) throw new AppError("forbidden:comment", "Only its author or a team owner can delete a comment.");
   if (comment.deletedAt) throw new AppError("conflict:comment", "This comment has already been deleted.");

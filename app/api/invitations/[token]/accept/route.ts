@@ -4,7 +4,7 @@ import { recordActivity } from "@/db/queries/activity";
 import { acceptInvitation } from "@/db/queries/invitations";
 import { setSessionActiveTeam } from "@/db/queries/teams";
 import type { AcceptedInvitationResponse } from "@/lib/http/team-types";
-import { requireCaller } from "@/lib/server/access";
+import { requireSessionCaller } from "@/lib/server/access";
 import { getAuth } from "@/lib/server/auth";
 import { apiRoute, parseWith } from "@/lib/server/route";
 import { invitationTokenSchema } from "@/lib/validation/team";
@@ -16,7 +16,8 @@ interface Context {
 
 export const POST = apiRoute<Context>(async (request, { params }) => {
   const token = parseWith(invitationTokenSchema, (await params).token, "token");
-  const caller = await requireCaller(request.headers);
+  // Joining a team is a person's decision, made in the browser: an API token reaches one team only.
+  const caller = await requireSessionCaller(request.headers, "An API token cannot accept an invitation; open the link in the browser, signed in.");
   const result = await acceptInvitation({ token, userId: caller.userId, userEmail: caller.email });
   if (result.outcome === "expired") return invitationGoneResponse(result.message);
   await recordActivity({

@@ -14,10 +14,10 @@ export const GET = apiRoute<Context>(async (request, { params }) => {
   const runId = parseWith(idSchema, (await params).runId, "run");
   const caller = await requireCaller(request.headers);
   const { run } = await requireRunAccess({ caller, runId, action: "study:read" });
-  // The run id names one payload that never changes. Vary on the cookie: on a shared browser the
-  // next person signed in must pass the access check, not be served from the cache.
+  // The run id names one payload that never changes. Vary on the cookie and the bearer token: on a
+  // shared browser or client the next caller must pass the access check, not be served from the cache.
   const etag = `"${run.id}"`;
-  const cacheHeaders = { "cache-control": "private, max-age=31536000, immutable", etag, vary: "cookie" };
+  const cacheHeaders = { "cache-control": "private, max-age=31536000, immutable", etag, vary: "cookie, authorization" };
   if (request.headers.get("if-none-match") === etag) return new Response(null, { status: 304, headers: cacheHeaders });
   const bytes = await getRunResultById({ id: runId });
   if (!bytes) throw new AppError("not_found:run", "This run has no stored result.");

@@ -4,12 +4,11 @@
 import { getRunById } from "@/db/queries/runs";
 import { publishLiveEvent } from "@/db/queries/live-events";
 import { joinStudyPresence, leaveStudyPresence, newPresenceId, touchStudyPresence } from "@/db/queries/presence";
-import { getMembershipRole } from "@/db/queries/teams";
 import { roleAllows } from "@/lib/access/roles";
 import type { PresenceStreamMessage } from "@/lib/http/activity-types";
 import type { LiveEvent } from "@/lib/live/live-event";
-import { getCaller, requireCaller, requireStudyAccess } from "@/lib/server/access";
-import { activityMessage, isMembershipChange, openLiveStream } from "@/lib/server/live-stream";
+import { getCaller, getCallerRole, requireCaller, requireStudyAccess } from "@/lib/server/access";
+import { activityMessage, isMembershipChange, jobMessage, openLiveStream } from "@/lib/server/live-stream";
 import { apiRoute, parseWith } from "@/lib/server/route";
 import { idSchema } from "@/lib/validation/ids";
 
@@ -50,14 +49,16 @@ export const GET = apiRoute<Context>(async (request, { params }) => {
         const data: PresenceStreamMessage = { studyId, at: event.at };
         return { event: "presence", id: `presence-${event.at}`, data };
       }
+      if (event.kind === "job") return event.studyId === studyId ? jobMessage(event) : null;
       const concernsStudy = event.studyId === studyId || (event.studyId === null && !!event.runId && (await isRunOfStudy(event.runId)));
       return concernsStudy ? activityMessage(event) : null;
     },
     recheckAfter: (event) => isMembershipChange(event, teamId),
     stillAllowed: async () => {
+      // The same session or token as at the connect (a revoked or expired token throws: the stream ends).
       const session = await getCaller(request.headers);
-      if (session?.userId !== caller.userId) return false;
-      const role = await getMembershipRole({ teamId, userId: caller.userId });
+      if (session?.userId !== caller.userId || session.token?.id !== caller.token?.id) return false;
+      const role = await getCallerRole({ caller: session, teamId });
       return role !== null && roleAllows(role, "study:read");
     },
     onOpen: async () => {

@@ -1,9 +1,8 @@
 // Live updates for a team's open pages (any member): every activity of the team, across its
 // studies. Access is checked at the connect, with every ping and whenever the team's membership
 // changes; a caller who lost it is disconnected.
-import { getMembershipRole } from "@/db/queries/teams";
 import { roleAllows } from "@/lib/access/roles";
-import { getCaller, requireCaller, requireTeamAccess } from "@/lib/server/access";
+import { getCaller, getCallerRole, requireCaller, requireTeamAccess } from "@/lib/server/access";
 import { activityMessage, isMembershipChange, openLiveStream } from "@/lib/server/live-stream";
 import { apiRoute, parseWith } from "@/lib/server/route";
 import { idSchema } from "@/lib/validation/ids";
@@ -25,9 +24,10 @@ export const GET = apiRoute<Context>(async (request, { params }) => {
     select: async (event) => (event.kind === "activity" && event.teamId === teamId ? activityMessage(event) : null),
     recheckAfter: (event) => isMembershipChange(event, teamId),
     stillAllowed: async () => {
+      // The same session or token as at the connect (a revoked or expired token throws: the stream ends).
       const session = await getCaller(request.headers);
-      if (session?.userId !== caller.userId) return false;
-      const role = await getMembershipRole({ teamId, userId: caller.userId });
+      if (session?.userId !== caller.userId || session.token?.id !== caller.token?.id) return false;
+      const role = await getCallerRole({ caller: session, teamId });
       return role !== null && roleAllows(role, "team:read");
     },
   });

@@ -2,6 +2,7 @@
 // anyone may remove themselves (leave). The team always keeps an owner (409 otherwise).
 import { recordActivity } from "@/db/queries/activity";
 import { changeMemberRole, removeMember } from "@/db/queries/teams";
+import { AppError } from "@/lib/http/app-error";
 import type { TeamMemberResponse } from "@/lib/http/team-types";
 import { requireCaller, requireTeamAccess } from "@/lib/server/access";
 import { apiRoute, parseJsonBody, parseWith } from "@/lib/server/route";
@@ -42,6 +43,7 @@ export const DELETE = apiRoute<Context>(async (request, { params }) => {
   const caller = await requireCaller(request.headers);
   // Leaving needs only membership; removing someone else needs the owner's action.
   const leaving = memberId === caller.userId;
+  if (leaving && caller.token) throw new AppError("forbidden:token", "An API token cannot take its owner off the team; leave the team on the team page.");
   const { role: callerRole } = await requireTeamAccess({ caller, teamId, action: leaving ? "team:read" : "team:manage-members" });
   const member = await removeMember({ teamId, userId: memberId, callerUserId: caller.userId, callerRole });
   await recordActivity({
