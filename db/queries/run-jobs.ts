@@ -489,6 +489,8 @@ export async function claimRunJob({ jobId, workerId, attempt }: AttemptKey): Pro
     .where(and(eq(runJob.id, jobId), inArray(runJob.state, activeStates), sql`${runJob.cancelRequestedAt} is null`))
     .returning();
   if (claimed) {
+    // A sweep is running from the moment its first run is.
+    if (claimed.sweepId) await db.update(sweepBatch).set({ state: "running" }).where(and(eq(sweepBatch.id, claimed.sweepId), eq(sweepBatch.state, "queued")));
     await jobEvent(claimed);
     return { kind: "run", job: claimed };
   }

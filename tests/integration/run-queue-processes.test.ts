@@ -157,7 +157,7 @@ describe("worker processes on a PostgreSQL server", () => {
     await admin.end();
     Object.assign(process.env, queueEnv, { DATABASE_URL: databaseUrl });
     ({ cookies, studyId } = await openDemoStudy());
-    shortScene = await createScene("Short barrier run", barrierScene(0.04));
+    shortScene = await createScene("Short barrier run", barrierScene(0.2));
     longScene = await createScene("Long barrier run", barrierScene(1.5));
     workers.push(startWorker(databaseUrl, "A"), startWorker(databaseUrl, "B"));
     await Promise.all(workers.map((worker) => worker.id));
@@ -206,7 +206,7 @@ describe("worker processes on a PostgreSQL server", () => {
     const caught = await until(
       "worker A to be part-way through a job",
       readSweep,
-      (s) => s.jobs.some((job) => job.state === "running" && job.workerId === victimId && job.progress >= 0.15 && job.progress <= 0.8),
+      (s) => s.jobs.some((job) => job.state === "running" && job.workerId === victimId && job.progress >= 0.05 && job.progress <= 0.9),
       90_000,
     );
     const killedJob = caught.jobs.find((job) => job.state === "running" && job.workerId === victimId)!;
