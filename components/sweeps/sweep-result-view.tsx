@@ -37,7 +37,7 @@ function ReceiverResult({ definition, results, receiverIndex }: { definition: Sw
   const rows = useMemo(() => sweepTableRows(results).filter((row) => row.receiverId === receiver.id), [results, receiver.id]);
   const unit = definition.unit;
   return (
-    <section aria-label={`Receiver ${receiver.label || receiver.id}`} className="flex flex-col gap-3 rounded-lg border border-rule bg-panel p-4 break-inside-avoid">
+    <section aria-label={`Receiver ${receiver.label || receiver.id}`} className="flex min-w-0 flex-col gap-3 rounded-lg border border-rule bg-panel p-4 break-inside-avoid">
       <h4 className="text-sm font-semibold text-ink">{receiver.label || receiver.id}</h4>
       <UPlotChart
         data={data}
