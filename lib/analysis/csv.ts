@@ -80,14 +80,20 @@ export function bandLevelsCsv(table: BandLevelTable, options: { levels?: readonl
     const overall = options.levels ? 10 * Math.log10(sum) : receiver.overall;
     rows.push([receiver.label || receiver.receiverId, formatCsvFixed(overall, 2), ...Array.from(levels, (level) => formatCsvFixed(level, 2))]);
   });
-  rows.push(...unresolvedBandLines(table.excluded));
-  if (options.note) rows.push([`# ${options.note}`]);
-  return toCsv(rows);
+  return toCsv(rows) + csvCommentLines([...unresolvedBandLines(table.excluded), ...(options.note ? [options.note] : [])]);
 }
 
-/** One comment line per band left out of the columns, with the reason, so a reader of the file knows the gap is deliberate. */
-export function unresolvedBandLines(excluded: readonly ExcludedBand[]): CsvCell[][] {
-  return excluded.map((entry) => [`# not resolved, left out: ${entry.band.nominal} Hz band (${entry.message})`]);
+/**
+ * Comment lines ("# " and the text) after the table, written as they are, never quoted: readers that
+ * skip comments (a "#" first on the line) then skip them however many commas they hold.
+ */
+export function csvCommentLines(lines: readonly string[]): string {
+  return lines.map((line) => `# ${line.replace(/[\r\n]+/g, " ")}\r\n`).join("");
+}
+
+/** One comment per band left out of the columns, with the reason, so a reader of the file knows the gap is deliberate. */
+export function unresolvedBandLines(excluded: readonly ExcludedBand[]): string[] {
+  return excluded.map((entry) => `not resolved, left out: ${entry.band.nominal} Hz band (${entry.message})`);
 }
 
 /** Insertion loss, one row per receiver: "receiver", "overall (dB)", one "(dB)" column per band; positive lowers the level. */
@@ -96,6 +102,5 @@ export function insertionLossCsv(table: InsertionLossTable, excluded: readonly E
   for (const receiver of table.receivers) {
     rows.push([receiver.label || receiver.receiverId, formatCsvFixed(receiver.overall, 2), ...Array.from(receiver.insertionLoss, (value) => formatCsvFixed(value, 2))]);
   }
-  rows.push(...unresolvedBandLines(excluded));
-  return toCsv(rows);
+  return toCsv(rows) + csvCommentLines(unresolvedBandLines(excluded));
 }
