@@ -136,13 +136,14 @@ export async function getSweepById({ id }: { id: string }): Promise<{ sweep: Swe
   });
 }
 
-async function countActiveJobs(teamId: string): Promise<number> {
+/** The team's queued and running jobs: how many, and their cells x steps together. */
+async function activeQueueUse(teamId: string): Promise<{ jobs: number; cellSteps: number }> {
   const db = await getDb();
   const rows = await db
-    .select({ count: sql<number>`count(*)`.mapWith(Number) })
+    .select({ count: sql<number>`count(*)`.mapWith(Number), cellSteps: sql<number>`coalesce(sum(${runJob.cellSteps}), 0)`.mapWith(Number) })
     .from(runJob)
     .where(and(eq(runJob.teamId, teamId), inArray(runJob.state, activeStates)));
-  return rows[0]?.count ?? 0;
+  return { jobs: rows[0]?.count ?? 0, cellSteps: rows[0]?.cellSteps ?? 0 };
 }
 
 /** The study's queue view: active jobs and those finished in the last `days` days, its sweeps, the team's limits, the workers seen. */
@@ -161,7 +162,14 @@ export async function listStudyQueue({ studyId, teamId, days }: { studyId: strin
     const sweepJobs = sweepIds.length > 0 ? await db.select({ sweepId: runJob.sweepId, kind: runJob.kind, state: runJob.state }).from(runJob).where(inArray(runJob.sweepId, sweepIds)) : [];
     const sweeps = sweepRows.map((row) => toSweepItem(row.sweep, sweepJobs.filter((job) => job.sweepId === row.sweep.id), row.createdByName));
     const limits = queueLimits();
-    const queueLimitsInUse: QueueLimits = { maxActiveJobs: limits.maxActiveJobs, maxCellStepsPerJob: limits.maxCellStepsPerJob, activeJobs: await countActiveJobs(teamId) };
+    const use = await activeQueueUse(teamId);
+    const queueLimitsInUse: QueueLimits = {
+      maxActiveJobs: limits.maxActiveJobs,
+      maxCellStepsPerJob: limits.maxCellStepsPerJob,
+      maxActiveCellSteps: limits.maxActiveCellSteps,
+      activeJobs: use.jobs,
+      activeCellSteps: use.cellSteps,
+    };
     return { jobs, sweeps, limits: queueLimitsInUse, workers: await listRecentWorkers() };
   });
 }
@@ -216,14 +224,20 @@ function checkJobSize(cellSteps: number, path: string, what: string): void {
   }
 }
 
-/** Refuses more queued or running jobs than the team may have. */
-async function checkActiveJobs(teamId: string, adding: number): Promise<void> {
-  const { maxActiveJobs } = queueLimits();
-  const active = await countActiveJobs(teamId);
-  if (active + adding > maxActiveJobs) {
+/** Refuses more queued or running jobs, or more work in them, than the team may have. */
+async function checkActiveJobs(teamId: string, adding: number, addingCellSteps: number): Promise<void> {
+  const { maxActiveJobs, maxActiveCellSteps } = queueLimits();
+  const active = await activeQueueUse(teamId);
+  if (active.jobs + adding > maxActiveJobs) {
     throw new AppError(
       "limit:queue",
-      `Your team has ${active} job${active === 1 ? "" : "s"} queued or running; the limit is ${maxActiveJobs}${adding > 1 ? `, and this would add ${adding}` : ""}. Wait for some to finish or cancel some.`,
+      `Your team has ${active.jobs} job${active.jobs === 1 ? "" : "s"} queued or running; the limit is ${maxActiveJobs}${adding > 1 ? `, and this would add ${adding}` : ""}. Wait for some to finish or cancel some.`,
+    );
+  }
+  if (active.cellSteps + addingCellSteps > maxActiveCellSteps) {
+    throw new AppError(
+      "limit:queue",
+      `Your team's queued and running jobs hold ${formatCount(active.cellSteps)} cell updates and this would add ${formatCount(addingCellSteps)}; the limit for a team is ${formatCount(maxActiveCellSteps)}. Wait for some to finish or cancel some.`,
     );
   }
 }
@@ -274,7 +288,7 @@ export async function queueRun({
   const frozen = await loadSavedVersion(sceneRecord, version, "sceneVersion");
   const cellSteps = deriveGrid(frozen).cellUpdates;
   checkJobSize(cellSteps, "sceneVersion", `${sceneRecord.name} version ${version}`);
-  await checkActiveJobs(sceneRecord.teamId, 1);
+  await checkActiveJobs(sceneRecord.teamId, 1, cellSteps);
   const { maxAttempts } = queueTimings();
   const row: NewJob["row"] = {
     id: newId(),
@@ -335,7 +349,7 @@ export async function queueSweep({ sceneRecord, userId, definition }: { sceneRec
   const { plan } = planned;
   const cellSteps = plan.runs.map((run) => deriveGrid(run.scene).cellUpdates);
   checkJobSize(Math.max(...cellSteps), "definition.sceneVersion", `One run of this sweep of ${sceneRecord.name} version ${definition.sceneVersion}`);
-  await checkActiveJobs(sceneRecord.teamId, plan.runs.length);
+  await checkActiveJobs(sceneRecord.teamId, plan.runs.length, cellSteps.reduce((sum, value) => sum + value, 0));
 
   const { maxAttempts } = queueTimings();
   const sweepId = newId();

@@ -72,7 +72,11 @@ export interface QueueLimits {
   maxActiveJobs: number;
   /** Largest job, cells x steps. */
   maxCellStepsPerJob: number;
+  /** Most work, cells x steps, a team may have queued or running at once. */
+  maxActiveCellSteps: number;
   activeJobs: number;
+  /** Cells x steps of the team's queued and running jobs together. */
+  activeCellSteps: number;
 }
 
 export interface StudyQueueResponse {

@@ -55,11 +55,13 @@ export function jobStatusWords(job: Pick<RunJobItem, "state" | "position" | "wor
   }
 }
 
-/** "14 of 60 jobs in the queue", said of the whole team, since the limit is the team's. */
+/** "14 of 60 jobs in the queue, 12% of its work allowance", said of the whole team, since the limits are the team's. */
 export function limitUseWords(limits: QueueLimits): string {
   const jobs = limits.maxActiveJobs === 1 ? "job" : "jobs";
-  const full = limits.activeJobs >= limits.maxActiveJobs ? " — full: new runs are refused until some finish" : "";
-  return `Your team has ${limits.activeJobs} of ${limits.maxActiveJobs} ${jobs} in the queue${full}`;
+  const share = Math.round((100 * limits.activeCellSteps) / limits.maxActiveCellSteps);
+  const allowance = limits.activeCellSteps > 0 ? `, ${share < 1 ? "under 1" : share}% of its work allowance` : "";
+  const full = limits.activeJobs >= limits.maxActiveJobs || limits.activeCellSteps >= limits.maxActiveCellSteps ? " — full: new runs are refused until some finish" : "";
+  return `Your team has ${limits.activeJobs} of ${limits.maxActiveJobs} ${jobs} in the queue${allowance}${full}`;
 }
 
 /** Largest job a worker takes, in the words of the scene page's grid figures. */

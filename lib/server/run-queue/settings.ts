@@ -22,12 +22,15 @@ export interface QueueLimitsSettings {
   maxActiveJobs: number;
   /** Grid cells x time steps of one job at most. */
   maxCellStepsPerJob: number;
+  /** Grid cells x time steps of all of one team's queued and running jobs together at most. */
+  maxActiveCellSteps: number;
 }
 
 export function queueLimits(): QueueLimitsSettings {
   return {
     maxActiveJobs: positiveNumber("RAREFACT_QUEUE_MAX_ACTIVE_JOBS", 60, { integer: true }),
     maxCellStepsPerJob: positiveNumber("RAREFACT_QUEUE_MAX_CELL_STEPS", 2e11),
+    maxActiveCellSteps: positiveNumber("RAREFACT_QUEUE_MAX_TEAM_CELL_STEPS", 2e12),
   };
 }
 
