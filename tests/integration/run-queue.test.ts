@@ -100,7 +100,8 @@ describe("queuing server runs", () => {
     expect(job.cellSteps).toBeGreaterThan(1000);
     const queue = await json<StudyQueueResponse>(await callRoute(studyJobsRoute.GET, { path: `/api/studies/${studyId}/jobs`, params: { studyId }, cookie: cookies.get("viewer") }), 200);
     expect(queue.jobs.map((j) => j.id)).toContain(job.id);
-    expect(queue.limits).toMatchObject({ maxActiveJobs: 60, maxCellStepsPerJob: 2e11 });
+    expect(queue.limits).toMatchObject({ maxActiveJobs: 60, maxCellStepsPerJob: 2e11, maxActiveCellSteps: 2e12 });
+    expect(queue.limits.activeCellSteps).toBeGreaterThanOrEqual(job.cellSteps);
     expect(queue.limits.activeJobs).toBeGreaterThanOrEqual(1);
     // pg-boss holds the job that will deliver it to a worker; cancelling withdraws it there too.
     expect((await queueJobOf(job.id))?.state).toBe("created");
@@ -131,6 +132,17 @@ describe("queuing server runs", () => {
     const body = await json<{ error: { code: string; message: string } }>(response, 409);
     expect(body.error.code).toBe("limit:queue");
     expect(body.error.message).toMatch(/the limit is 1/);
+    await json(await cancelJob("editor", first.id), 200);
+  });
+
+  it("refuses more work in the queue than the team may have with 409 limit:queue, saying the figures", async () => {
+    const first = (await json<{ job: RunJobItem }>(await queueRun("editor"), 202)).job;
+    // Room for the first job and a bit more, not for a second of the same size.
+    const allowance = String(Math.round(first.cellSteps * 1.5));
+    const response = await withEnv("RAREFACT_QUEUE_MAX_TEAM_CELL_STEPS", allowance, () => queueRun("editor"));
+    const body = await json<{ error: { code: string; message: string } }>(response, 409);
+    expect(body.error.code).toBe("limit:queue");
+    expect(body.error.message).toMatch(/the limit for a team is/);
     await json(await cancelJob("editor", first.id), 200);
   });
 

@@ -158,8 +158,12 @@ describe("words", () => {
   });
 
   it("says the team's limit use, and when the queue is full", () => {
-    expect(limitUseWords({ maxActiveJobs: 60, activeJobs: 14, maxCellStepsPerJob: 2e11 })).toBe("Your team has 14 of 60 jobs in the queue");
-    expect(limitUseWords({ maxActiveJobs: 60, activeJobs: 60, maxCellStepsPerJob: 2e11 })).toContain("full");
+    const limits = { maxActiveJobs: 60, maxCellStepsPerJob: 2e11, maxActiveCellSteps: 2e12, activeCellSteps: 0 };
+    expect(limitUseWords({ ...limits, activeJobs: 0 })).toBe("Your team has 0 of 60 jobs in the queue");
+    expect(limitUseWords({ ...limits, activeJobs: 14, activeCellSteps: 2.4e11 })).toBe("Your team has 14 of 60 jobs in the queue, 12% of its work allowance");
+    expect(limitUseWords({ ...limits, activeJobs: 1, activeCellSteps: 1e9 })).toBe("Your team has 1 of 60 jobs in the queue, under 1% of its work allowance");
+    expect(limitUseWords({ ...limits, activeJobs: 60 })).toContain("full");
+    expect(limitUseWords({ ...limits, activeJobs: 3, activeCellSteps: 2e12 })).toContain("full");
   });
 
   it("says which workers were seen", () => {
@@ -175,7 +179,7 @@ describe("words", () => {
 });
 
 describe("fallback refetch", () => {
-  const queue = (states: RunJobItem["state"][]) => ({ jobs: states.map((state, i) => makeJob({ id: String(i), state })), sweeps: [], limits: { maxActiveJobs: 60, maxCellStepsPerJob: 2e11, activeJobs: 0 }, workers: [] });
+  const queue = (states: RunJobItem["state"][]) => ({ jobs: states.map((state, i) => makeJob({ id: String(i), state })), sweeps: [], limits: { maxActiveJobs: 60, maxCellStepsPerJob: 2e11, maxActiveCellSteps: 2e12, activeJobs: 0, activeCellSteps: 0 }, workers: [] });
   it("refetches every 5 s while something runs, slower while only queued, and not at all when everything is finished", () => {
     expect(queueRefetchInterval(queue(["completed", "running"]))).toBe(5000);
     expect(queueRefetchInterval(queue(["queued", "failed"]))).toBe(15000);
