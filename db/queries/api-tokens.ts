@@ -2,28 +2,23 @@
 // bearer token. Only the secret's SHA-256 is stored and a token is found by looking that hash up, so
 // the secret is never compared in application code and exists only in the answer that made it.
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, isNull, lt, or, type SQL } from "drizzle-orm";
 import { isTeamRole, type TeamRole } from "@/lib/access/roles";
 import type { ApiTokenItem } from "@/lib/http/api-token-types";
 import { getDb } from "../client";
 import { apiToken, team, user } from "../schema";
+import { hashSecret, newSecret } from "./secrets";
 import { newId, withDatabaseErrors } from "./wrap";
 
 /** 32 random bytes: 256 bits, so guessing a token is hopeless and needs no rate limit. */
-const secretBytes = 32;
 const secretPrefix = "rft_";
 /** "rft_" and four characters of the secret: enough to tell one's tokens apart, far too few to guess with. */
 const displayPrefixLength = secretPrefix.length + 4;
 /** lastUsedAt is a hint for people, not an audit log: one write a minute per token is plenty. */
 const lastUsedResolutionMs = 60_000;
 
-export function hashApiTokenSecret(secret: string): string {
-  return createHash("sha256").update(secret, "utf8").digest("hex");
-}
-
 function newApiTokenSecret(): string {
-  return `${secretPrefix}${randomBytes(secretBytes).toString("base64url")}`;
+  return `${secretPrefix}${newSecret()}`;
 }
 
 const itemColumns = {
@@ -86,7 +81,7 @@ export async function createApiToken({
     const db = await getDb();
     const id = newId();
     const secret = newApiTokenSecret();
-    await db.insert(apiToken).values({ id, userId, teamId, role, name, tokenHash: hashApiTokenSecret(secret), tokenPrefix: secret.slice(0, displayPrefixLength), expiresAt });
+    await db.insert(apiToken).values({ id, userId, teamId, role, name, tokenHash: hashSecret(secret), tokenPrefix: secret.slice(0, displayPrefixLength), expiresAt });
     const [token] = await selectItems(eq(apiToken.id, id));
     if (!token) throw new Error("the new API token could not be read back");
     return { token, secret };
@@ -140,7 +135,7 @@ export async function findApiTokenBySecret({ secret }: { secret: string }): Prom
       })
       .from(apiToken)
       .innerJoin(user, eq(user.id, apiToken.userId))
-      .where(eq(apiToken.tokenHash, hashApiTokenSecret(secret)))
+      .where(eq(apiToken.tokenHash, hashSecret(secret)))
       .limit(1);
     const row = rows[0];
     if (!row) return null;

@@ -2,7 +2,6 @@
 // app/api/auth/[...all]/route.ts); Rarefact keeps only the SHA-256 of each link's secret, and
 // accepting uses the row's status as a single-use latch inside the transaction that adds the member.
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
 import { alias } from "drizzle-orm/pg-core";
 import { and, desc, eq, gt, sql, type SQL } from "drizzle-orm";
 import { isTeamRole, type TeamRole } from "@/lib/access/roles";
@@ -11,17 +10,9 @@ import { AppError } from "@/lib/http/app-error";
 import type { TeamInvitationItem } from "@/lib/http/team-types";
 import { getDb } from "../client";
 import { invitation, membership, team, user } from "../schema";
+import { hashSecret, newSecret } from "./secrets";
 import { newId, withDatabaseErrors } from "./wrap";
 
-/** The stored form of a link's secret: SHA-256, hex. A database leak reveals no working link. */
-export function hashInvitationToken(token: string): string {
-  return createHash("sha256").update(token, "utf8").digest("hex");
-}
-
-/** 32 random bytes, base64url: 43 characters that go into the e-mail's link and nowhere else. */
-function newInvitationToken(): string {
-  return randomBytes(32).toString("base64url");
-}
 
 const inviter = alias(user, "inviter");
 const accepter = alias(user, "accepter");
@@ -115,8 +106,9 @@ export async function createInvitation({
   now?: Date;
 }): Promise<{ invitation: TeamInvitationItem; token: string }> {
   const address = normaliseEmail(email);
-  const token = newInvitationToken();
-  const tokenHash = hashInvitationToken(token);
+  // The secret goes into the e-mail's link and nowhere else.
+  const token = newSecret();
+  const tokenHash = hashSecret(token);
   const id = await withDatabaseErrors("make the invitation", async () => {
     const db = await getDb();
     return db.transaction(async (tx) => {
@@ -179,7 +171,7 @@ export interface InvitationByToken {
 
 /** The invitation a link's secret belongs to (looked up by its hash), or null. */
 export async function getInvitationByToken({ token, now = new Date() }: { token: string; now?: Date }): Promise<InvitationByToken | null> {
-  const tokenHash = hashInvitationToken(token);
+  const tokenHash = hashSecret(token);
   return withDatabaseErrors("read the invitation", async () => {
     const db = await getDb();
     const [row] = await db
@@ -229,7 +221,7 @@ export async function acceptInvitation({
   userEmail: string;
   now?: Date;
 }): Promise<AcceptOutcome> {
-  const tokenHash = hashInvitationToken(token);
+  const tokenHash = hashSecret(token);
   const found = await getInvitationByToken({ token, now });
   if (!found) throw new AppError("not_found:invitation", "This invitation link is not known. Check that the whole link was copied.");
   if (found.state === "expired") return { outcome: "expired", message: invitationUnavailableMessage("expired") };

@@ -2,7 +2,6 @@
 // reads that one study. The link's secret is never stored: only its SHA-256 is, and a link is found by
 // looking that hash up, so the secret is never compared in application code.
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, isNull, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import type { RunListFigures, RunListItem } from "@/lib/http/api-types";
@@ -13,18 +12,9 @@ import { run, study, studyShareLink, team, user } from "../schema";
 import { listStoredBlocksByStudyId } from "./blocks";
 import { getRunById, listRunsByStudyId } from "./runs";
 import { listScenesByStudyId } from "./scenes";
+import { hashSecret, newSecret } from "./secrets";
 import { newId, withDatabaseErrors } from "./wrap";
 
-/** 32 random bytes: 256 bits, so guessing a link is hopeless and needs no rate limit. */
-const tokenBytes = 32;
-
-export function hashShareToken(token: string): string {
-  return createHash("sha256").update(token, "utf8").digest("hex");
-}
-
-function newShareToken(): string {
-  return randomBytes(tokenBytes).toString("base64url");
-}
 
 const revoker = alias(user, "revoker");
 
@@ -75,8 +65,8 @@ export async function createShareLink({ studyId, label, createdBy }: { studyId: 
   return withDatabaseErrors("make the read-only link", async () => {
     const db = await getDb();
     const id = newId();
-    const token = newShareToken();
-    await db.insert(studyShareLink).values({ id, studyId, tokenHash: hashShareToken(token), label, createdBy });
+    const token = newSecret();
+    await db.insert(studyShareLink).values({ id, studyId, tokenHash: hashSecret(token), label, createdBy });
     const [link] = await selectLinks(eq(studyShareLink.id, id));
     if (!link) throw new Error("insert returned no row");
     return { link, token };
@@ -124,7 +114,7 @@ export async function findSharedStudyByToken({ token }: { token: string }): Prom
       .from(studyShareLink)
       .innerJoin(study, eq(study.id, studyShareLink.studyId))
       .innerJoin(team, eq(team.id, study.teamId))
-      .where(and(eq(studyShareLink.tokenHash, hashShareToken(token)), isNull(studyShareLink.revokedAt)))
+      .where(and(eq(studyShareLink.tokenHash, hashSecret(token)), isNull(studyShareLink.revokedAt)))
       .limit(1);
     const row = rows[0];
     if (!row) return null;
