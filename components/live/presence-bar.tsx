@@ -1,12 +1,13 @@
 "use client";
-// Who else has the study open: small initials, names on hover, and one sentence for everyone.
+// Who else is in the study (on any of its pages: notebook, a scene, a run): small initials, names on
+// hover, and one sentence for everyone. Worded for the study, since presence is kept per study.
 import { useStudyPresence } from "@/lib/client/activity-queries";
 import type { PresentUser } from "@/lib/http/activity-types";
 
-export function presenceSentence(others: PresentUser[], noun: string): string {
-  if (others.length === 0) return `Only you have this ${noun} open`;
-  if (others.length === 1) return `You and ${others[0]!.name} have this ${noun} open`;
-  return `You and ${others.length} others have this ${noun} open`;
+export function presenceSentence(others: PresentUser[]): string {
+  if (others.length === 0) return "Only you are in this study now";
+  if (others.length === 1) return `You and ${others[0]!.name} are in this study now`;
+  return `You and ${others.length} others are in this study now`;
 }
 
 export function PresenceBar({ studyId, viewerId }: { studyId: string; viewerId: string | null }) {
@@ -18,7 +19,7 @@ export function PresenceBar({ studyId, viewerId }: { studyId: string; viewerId: 
   return (
     <div className="flex items-center gap-2" data-testid="presence-bar">
       {others.length > 0 ? (
-        <ul aria-label="Colleagues with this study open" className="flex -space-x-1.5">
+        <ul aria-label="Colleagues in this study now" className="flex -space-x-1.5">
           {others.slice(0, 5).map((person) => (
             <li
               key={person.userId}
@@ -35,7 +36,7 @@ export function PresenceBar({ studyId, viewerId }: { studyId: string; viewerId: 
         </ul>
       ) : null}
       <p className="text-xs text-muted" title={names || undefined}>
-        {presenceSentence(others, "study")}
+        {presenceSentence(others)}
       </p>
     </div>
   );
