@@ -14,7 +14,8 @@ import { roleAllows, type TeamRole } from "@/lib/access/roles";
 import { ServerSweepStatus } from "@/components/queue/server-sweep-status";
 import { refusalWords } from "@/components/queue/model/queue-words";
 import { ApiError, fetchJson } from "@/lib/client/api";
-import { useQueueSweep, type SweepAnswer } from "@/lib/client/job-queries";
+import { useQueueSweep, useServerSweep, type SweepAnswer } from "@/lib/client/job-queries";
+import { useRouter } from "next/navigation";
 import { queryKeys, useBlocks, useStudy } from "@/lib/client/queries";
 import { deriveGrid } from "@/lib/fdtd/grid";
 import { parseScene, type Scene } from "@/lib/fdtd/scene";
@@ -58,6 +59,8 @@ interface SetupProps {
   record: SceneListItem;
   scene: Scene;
   initial: SweepDefinition | null;
+  /** A server sweep of this scene to follow (from `?sweep=<id>`, set when it was sent). */
+  followed: SweepAnswer | null;
 }
 
 function initialState(scene: Scene, initial: SweepDefinition | null) {
@@ -79,7 +82,7 @@ function initialState(scene: Scene, initial: SweepDefinition | null) {
   };
 }
 
-function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
+function SweepSetup({ studyId, role, record, scene, initial, followed }: SetupProps) {
   const choices = useMemo(() => parameterChoices(scene), [scene]);
   const elements = useMemo(() => removableElements(scene), [scene]);
   const receivers = useMemo(() => receiverOptions(scene), [scene]);
@@ -93,7 +96,8 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
   // Where the runs step: here (the page must stay open) or on the team's workers (it may be closed).
   const [where, setWhere] = useState<"browser" | "server">("browser");
   const queueSweep = useQueueSweep(record.id);
-  const [serverSweep, setServerSweep] = useState<SweepAnswer | null>(null);
+  const [serverSweep, setServerSweep] = useState<SweepAnswer | null>(followed);
+  const router = useRouter();
 
   const choice = choices.find((c) => c.key === form.parameterKey);
   const range = { from: Number(form.from), to: Number(form.to), step: Number(form.step) };
@@ -162,7 +166,16 @@ function SweepSetup({ studyId, role, record, scene, initial }: SetupProps) {
       receiverIds: form.receiverIds,
     };
     if (where === "server") {
-      queueSweep.mutate({ definition }, { onSuccess: (answer) => setServerSweep(answer) });
+      queueSweep.mutate(
+        { definition },
+        {
+          onSuccess: (answer) => {
+            setServerSweep(answer);
+            // In the address, so that a reload (or the link, shared) still follows this sweep.
+            router.replace(`/studies/${studyId}/sweeps?scene=${record.id}&sweep=${answer.sweep.id}`, { scroll: false });
+          },
+        },
+      );
       return;
     }
     void start({ plan, definition, receivers: receivers.filter((r) => form.receiverIds.includes(r.id)), highestResolvedFrequency: resolvedFrequencyLimit(grid) });
@@ -447,9 +460,10 @@ function SweepProgress({
 }
 
 /** Loads the study (and, to run a saved sweep again, its notebook), then the setup for the chosen scene. */
-export function SweepWorkbench({ studyId, sceneId, fromBlockId }: { studyId: string; sceneId?: string; fromBlockId?: string }) {
+export function SweepWorkbench({ studyId, sceneId, fromBlockId, followSweepId }: { studyId: string; sceneId?: string; fromBlockId?: string; followSweepId?: string }) {
   const study = useStudy(studyId);
   const blocks = useBlocks(studyId);
+  const followed = useServerSweep(studyId, followSweepId);
   const fromBlock = useMemo(() => {
     if (!fromBlockId || !blocks.data) return null;
     const block = blocks.data.blocks.find((b) => b.id === fromBlockId);
@@ -458,10 +472,11 @@ export function SweepWorkbench({ studyId, sceneId, fromBlockId }: { studyId: str
   }, [fromBlockId, blocks.data]);
   const [chosenSceneId, setChosenSceneId] = useState<string | null>(null);
 
-  if (study.isPending || (fromBlockId && blocks.isPending)) return <LoadingRows label="Loading the study" rows={2} />;
+  if (study.isPending || (fromBlockId && blocks.isPending) || (followSweepId && followed.isPending)) return <LoadingRows label="Loading the study" rows={2} />;
   if (study.isError) return <ErrorState title="The study could not be loaded" message={study.error.message} onRetry={() => study.refetch()} />;
   const { study: record, role, scenes } = study.data;
-  const selectedId = chosenSceneId ?? fromBlock?.sceneId ?? sceneId ?? scenes.find((s) => !s.isReference)?.id ?? scenes[0]?.id;
+  const followedSweep = followed.data && followed.data.sweep.studyId === studyId ? followed.data : null;
+  const selectedId = chosenSceneId ?? fromBlock?.sceneId ?? followedSweep?.sweep.sceneId ?? sceneId ?? scenes.find((s) => !s.isReference)?.id ?? scenes[0]?.id;
   const selected = scenes.find((s) => s.id === selectedId);
   const parsed = selected ? parseScene(selected.data) : null;
 
@@ -503,7 +518,9 @@ export function SweepWorkbench({ studyId, sceneId, fromBlockId }: { studyId: str
             ) : null}
           </div>
           {!selected || !parsed ? null : parsed.ok ? (
-            <SweepSetup key={selected.id} studyId={studyId} role={role} record={selected} scene={parsed.scene} initial={fromBlock && fromBlock.sceneId === selected.id ? fromBlock : null} />
+            <SweepSetup key={selected.id} studyId={studyId} role={role} record={selected} scene={parsed.scene} initial={fromBlock && fromBlock.sceneId === selected.id ? fromBlock : null}
+              followed={followedSweep && followedSweep.sweep.sceneId === selected.id ? followedSweep : null}
+            />
           ) : (
             <ErrorState title="This scene cannot be swept" message={`Its saved version is not valid: ${parsed.problems[0]?.path || "(scene)"}: ${parsed.problems[0]?.message ?? "unknown problem"}`} />
           )}

@@ -9,6 +9,8 @@ import { fetchJson } from "./api";
 
 export const jobQueryKeys = {
   studyJobs: (studyId: string) => ["studies", studyId, "jobs"] as const,
+  /** Under the study's jobs, so that the same live events refresh it. */
+  sweep: (studyId: string, sweepId: string) => ["studies", studyId, "jobs", "sweep", sweepId] as const,
 };
 
 export interface QueuedRunAnswer {
@@ -39,6 +41,15 @@ export function useStudyJobs(studyId: string, options: { enabled?: boolean } = {
     queryFn: () => fetchJson<StudyQueueResponse>(`/api/studies/${studyId}/jobs`),
     refetchInterval: (query) => queueRefetchInterval(query.state.data),
     enabled: options.enabled ?? true,
+  });
+}
+
+/** One server sweep with its runs: the sweeps page follows it after a reload (`?sweep=<id>`). */
+export function useServerSweep(studyId: string, sweepId: string | undefined) {
+  return useQuery({
+    queryKey: jobQueryKeys.sweep(studyId, sweepId ?? ""),
+    queryFn: () => fetchJson<SweepAnswer>(`/api/sweeps/${sweepId}`),
+    enabled: sweepId !== undefined,
   });
 }
 

@@ -50,6 +50,9 @@ describe("a sweep on the server", () => {
     const queued = (await response.json()) as { sweep: { id: string; caseCount: number } };
     expect(queued.sweep.caseCount).toBe(12);
     await page.getByTestId("server-sweep").waitFor();
+    // The address names the sweep, so that coming back to it follows the same sweep.
+    await page.waitForURL(new RegExp(`sweep=${queued.sweep.id}`));
+    const sweepPagePath = new URL(page.url()).pathname + new URL(page.url()).search;
     await keepScreenshot(page, "server-sweep-sent");
     // The engineer closes the browser while the sweep runs.
     await first.close();
@@ -74,5 +77,11 @@ describe("a sweep on the server", () => {
     expect(text).not.toMatch(/failed|not run/i);
     await block.scrollIntoViewIfNeeded();
     await keepScreenshot(again, "server-sweep-chart");
+
+    // The sweeps page's address from the first visit shows the finished sweep and its chart too.
+    await again.goto(sweepPagePath);
+    const followed = again.getByTestId("server-sweep");
+    await followed.locator('[data-job-state="completed"]').first().waitFor({ timeout: 60_000 });
+    await followed.getByText(/insertion loss/i).first().waitFor({ timeout: 60_000 });
   });
 });

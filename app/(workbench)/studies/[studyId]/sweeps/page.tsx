@@ -13,6 +13,7 @@ export default async function SweepsPage({ params, searchParams }: { params: Pro
   const query = await searchParams;
   const scene = single(query.scene);
   const block = single(query.block);
+  const sweep = single(query.sweep);
   await requirePageCaller(`/studies/${studyId}/sweeps`);
-  return <SweepWorkbench studyId={studyId} {...(scene ? { sceneId: scene } : {})} {...(block ? { fromBlockId: block } : {})} />;
+  return <SweepWorkbench studyId={studyId} {...(scene ? { sceneId: scene } : {})} {...(block ? { fromBlockId: block } : {})} {...(sweep ? { followSweepId: sweep } : {})} />;
 }
