@@ -4,6 +4,7 @@
 // uPlot: the x axis is a list of bands, not a continuous quantity, and each bar carries its own title.
 import type { Ref } from "react";
 
+import { USE_WITH_CARE_MARK } from "@/lib/analysis/accuracy";
 import type { FrequencyBand } from "@/lib/analysis/bands";
 
 export interface BarGroup {
@@ -24,9 +25,13 @@ export interface BandBarChartProps {
   fromZero?: boolean;
   ariaLabel: string;
   svgRef?: Ref<SVGSVGElement>;
+  /** Bands the accuracy estimate rates "use with care" (bandsToUseWithCare: index to reason): their label carries a mark. */
+  careful?: ReadonlyMap<number, string>;
 }
 
 const WIDTH = 760;
+/** The signal-warn colour of the theme, written out: exported PNGs carry no stylesheet. */
+const CAUTION_COLOUR = "#b7791f";
 const HEIGHT = 260;
 const MARGIN = { left: 52, right: 10, top: 12, bottom: 40 };
 
@@ -65,7 +70,7 @@ function valueRange(groups: readonly BarGroup[], fromZero: boolean): [number, nu
   return [Math.floor(low / step) * step, Math.ceil(high / step) * step];
 }
 
-export function BandBarChart({ bands, groups, unit, quantity, fromZero = false, ariaLabel, svgRef }: BandBarChartProps) {
+export function BandBarChart({ bands, groups, unit, quantity, fromZero = false, ariaLabel, svgRef, careful }: BandBarChartProps) {
   const [low, high] = valueRange(groups, fromZero);
   const plotWidth = WIDTH - MARGIN.left - MARGIN.right;
   const plotHeight = HEIGHT - MARGIN.top - MARGIN.bottom;
@@ -80,7 +85,7 @@ export function BandBarChart({ bands, groups, unit, quantity, fromZero = false, 
   const labelEvery = Math.max(1, Math.ceil(34 / slot));
 
   return (
-    <svg ref={svgRef} viewBox={`0 0 ${WIDTH} ${HEIGHT}`} className="h-auto w-full max-w-3xl font-mono" role="img" aria-label={ariaLabel} data-testid="band-bar-chart">
+    <svg ref={svgRef} viewBox={`0 0 ${WIDTH} ${HEIGHT}`} className="h-auto w-full max-w-3xl font-mono" role="img" aria-label={careful && careful.size > 0 ? `${ariaLabel}; ${careful.size} band${careful.size === 1 ? "" : "s"} marked use with care` : ariaLabel} data-testid="band-bar-chart">
       <rect x={0} y={0} width={WIDTH} height={HEIGHT} fill="#ffffff" />
       {ticks.map((tick) => (
         <g key={tick}>
@@ -93,27 +98,33 @@ export function BandBarChart({ bands, groups, unit, quantity, fromZero = false, 
       <text transform={`translate(12 ${MARGIN.top + plotHeight / 2}) rotate(-90)`} textAnchor="middle" fontSize={11} fill="#66717c">
         {quantity} ({unit})
       </text>
-      {bands.map((band, b) => (
-        <g key={band.index}>
-          {groups.map((group, g) => {
-            const value = group.values[b] ?? NaN;
-            if (!Number.isFinite(value)) return null;
-            const top = Math.min(y(value), base);
-            const x = MARGIN.left + b * slot + slot * 0.1 + g * barWidth;
-            return (
-              <rect key={g} x={x} y={top} width={Math.max(1, barWidth - 1)} height={Math.max(0.5, Math.abs(y(value) - base))} fill={group.colour}>
-                <title>{`${group.label} · ${formatHz(band.nominal)} band (exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz, centre ${band.centre.toFixed(1)} Hz): ${value.toFixed(1)} ${unit}`}</title>
-              </rect>
-            );
-          })}
-          {b % labelEvery === 0 ? (
-            <text x={MARGIN.left + (b + 0.5) * slot} y={HEIGHT - MARGIN.bottom + 14} textAnchor="middle" fontSize={11} fill="#66717c">
-              <title>{`exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz`}</title>
-              {band.nominal >= 1000 ? `${Number((band.nominal / 1000).toPrecision(3))}k` : band.nominal}
-            </text>
-          ) : null}
-        </g>
-      ))}
+      {bands.map((band, b) => {
+        const reason = careful?.get(band.index);
+        const caution = reason ? `. Use with care: ${reason}` : "";
+        return (
+          <g key={band.index}>
+            {groups.map((group, g) => {
+              const value = group.values[b] ?? NaN;
+              if (!Number.isFinite(value)) return null;
+              const top = Math.min(y(value), base);
+              const x = MARGIN.left + b * slot + slot * 0.1 + g * barWidth;
+              return (
+                <rect key={g} x={x} y={top} width={Math.max(1, barWidth - 1)} height={Math.max(0.5, Math.abs(y(value) - base))} fill={group.colour}>
+                  <title>{`${group.label} · ${formatHz(band.nominal)} band (exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz, centre ${band.centre.toFixed(1)} Hz): ${value.toFixed(1)} ${unit}${caution}`}</title>
+                </rect>
+              );
+            })}
+            {b % labelEvery === 0 || reason ? (
+              <text x={MARGIN.left + (b + 0.5) * slot} y={HEIGHT - MARGIN.bottom + 14} textAnchor="middle" fontSize={11} fill="#66717c">
+                <title>{`exact edges ${band.lower.toFixed(1)}–${band.upper.toFixed(1)} Hz${caution}`}</title>
+                {/* A marked band whose label is thinned out keeps the mark alone, so that no caution is lost. */}
+                {b % labelEvery === 0 ? (band.nominal >= 1000 ? `${Number((band.nominal / 1000).toPrecision(3))}k` : band.nominal) : null}
+                {reason ? <tspan fill={CAUTION_COLOUR}>{USE_WITH_CARE_MARK}</tspan> : null}
+              </text>
+            ) : null}
+          </g>
+        );
+      })}
       <line x1={MARGIN.left} x2={WIDTH - MARGIN.right} y1={base} y2={base} stroke="#66717c" />
       <text x={MARGIN.left + plotWidth / 2} y={HEIGHT - 6} textAnchor="middle" fontSize={11} fill="#66717c">
         Band, nominal centre frequency (Hz)

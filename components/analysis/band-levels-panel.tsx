@@ -4,6 +4,7 @@
 // resolves, and the reason for every band left out.
 import { Fragment, useMemo, useRef, useState } from "react";
 
+import { useCarefulBands } from "@/components/accuracy/careful-bands";
 import { downloadBlob } from "@/components/field-view/field-view-toolbar";
 import { AddChartButton } from "@/components/notebook/add-chart-block";
 import { type Atmosphere, BAND_CENTRE_SIMPLIFICATION, bandAirAttenuation, molarConcentrationOfWaterVapour } from "@/lib/analysis/air-absorption";
@@ -15,7 +16,7 @@ import type { DecodedRun } from "@/lib/run-record/payload";
 import { AnalysisPanel, ExportButton, Note, Segmented } from "./analysis-controls";
 import { receiverColour } from "./analysis-traces";
 import { BandBarChart, formatHz } from "./band-bar-chart";
-import { BandTableHead, bandFileTag, ReceiverBandRow } from "./band-table";
+import { BandTableHead, bandFileTag, ReceiverBandRow, UseWithCareLegend } from "./band-table";
 import { downloadCsv, exportFileName, svgChartPng } from "./export-files";
 
 export interface BandLevelsPanelProps {
@@ -94,6 +95,7 @@ export function BandLevelsPanel({ run, runId, studyId, receiverIds, highestResol
 
   const unit = weighting === "A" ? "dB(A) re 20 µPa" : "dB re 20 µPa";
   const table = outcome && "table" in outcome ? outcome.table : null;
+  const careful = useCarefulBands(run, table?.bands, bandsPerOctave);
   const airRows = effect && typeof effect !== "string" ? effect.rows : null;
   const shownLevels = (r: number) => airRows?.[r]?.levels ?? table!.receivers[r]!.levels;
   const indexOf = (id: string) => run.receivers.findIndex((receiver) => receiver.id === id);
@@ -172,7 +174,7 @@ export function BandLevelsPanel({ run, runId, studyId, receiverIds, highestResol
         <>
           <div className="overflow-x-auto">
             <table className="min-w-full border-collapse font-mono text-[12px]" data-testid="band-level-table">
-              <BandTableHead bands={table.bands} showCentre />
+              <BandTableHead bands={table.bands} showCentre careful={careful} />
               <tbody>
                 {table.receivers.map((receiver, r) => (
                   <Fragment key={receiver.receiverId}>
@@ -202,7 +204,9 @@ export function BandLevelsPanel({ run, runId, studyId, receiverIds, highestResol
             unit={unit}
             quantity="Band level"
             ariaLabel={`Band levels of ${table.receivers.map((r) => r.label).join(", ")}`}
+            careful={careful}
           />
+          <UseWithCareLegend careful={careful} />
           <div className="flex flex-wrap items-center justify-between gap-2">
             <Note>
               {airRows ? `Levels after ${effect && typeof effect !== "string" ? effect.note : ""}. ${BAND_CENTRE_SIMPLIFICATION} ` : ""}Hover a band heading or a bar for its exact edges.

@@ -5,6 +5,7 @@
 // estimates.
 import { useMemo, useRef, useState } from "react";
 
+import { useCarefulBands } from "@/components/accuracy/careful-bands";
 import { FieldView, type FieldViewHandle } from "@/components/field-view/field-view";
 import { downloadBlob } from "@/components/field-view/field-view-toolbar";
 import { AddChartButton } from "@/components/notebook/add-chart-block";
@@ -22,7 +23,7 @@ import type { DecodedRun } from "@/lib/run-record/payload";
 import { AnalysisPanel, ExportButton, Note, Segmented } from "./analysis-controls";
 import { receiverColour } from "./analysis-traces";
 import { BandBarChart } from "./band-bar-chart";
-import { BandTableHead, bandFileTag, ReceiverBandRow } from "./band-table";
+import { BandTableHead, bandFileTag, ReceiverBandRow, UseWithCareLegend } from "./band-table";
 import { BarrierComparison } from "./barrier-comparison";
 import { downloadCsv, exportFileName, svgChartPng } from "./export-files";
 import { ReferenceMaker } from "./reference-maker";
@@ -82,6 +83,8 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
     const octave = computeInsertionLoss(run, loaded, receiverIds, 1, "Z", highestResolvedFrequency);
     return typeof octave === "string" ? undefined : octave;
   }, [loaded, fit?.ok, run, receiverIds, highestResolvedFrequency]);
+  // Marks from this run's own accuracy estimate: the reference shares its grid (a condition of fitting).
+  const careful = useCarefulBands(run, table && typeof table !== "string" ? table.bands : undefined, bandsPerOctave);
   const mapFit = loaded && fit?.ok ? levelMapCompatibility(run.header, loaded.header) : null;
   const indexOf = (id: string) => run.receivers.findIndex((receiver) => receiver.id === id);
   const referenceItem = runs.data?.runs.find((item) => item.id === referenceId);
@@ -183,7 +186,7 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
         <>
           <div className="overflow-x-auto">
             <table className="min-w-full border-collapse font-mono text-[12px]" data-testid="insertion-loss-table">
-              <BandTableHead bands={table.bands} />
+              <BandTableHead bands={table.bands} careful={careful} />
               <tbody>
                 {table.receivers.map((receiver) => (
                   <ReceiverBandRow key={receiver.receiverId} label={receiver.label} colour={receiverColour(indexOf(receiver.receiverId))} overall={receiver.overall} values={receiver.insertionLoss} />
@@ -199,7 +202,9 @@ export function InsertionLossPanel({ runId, studyId, run, scene, receiverIds, hi
             quantity="Insertion loss"
             fromZero
             ariaLabel="Insertion loss per band"
+            careful={careful}
           />
+          <UseWithCareLegend careful={careful} />
           <div className="flex flex-wrap justify-end gap-2">
             <ExportButton label="CSV" onExport={() => downloadCsv(insertionLossCsv(table, unresolvedBandsOf(run, bandsPerOctave, highestResolvedFrequency)), exportFileName(runId, `insertion-loss-${bandFileTag(bandsPerOctave, weighting)}`, "csv"))} />
             <ExportButton label="PNG" onExport={async () => downloadBlob(await svgChartPng(svg.current!), exportFileName(runId, "insertion-loss", "png"))} />

@@ -1,9 +1,11 @@
 "use client";
 // Start, pause, resume and cancel a browser run, with its progress in the units an engineer
-// watches: steps, simulated time, cell updates per second, time left. A finished run can be saved.
+// watches: steps, simulated time, cell updates per second, time left. A finished run can be saved, and says
+// how far to trust it (the accuracy estimate, collapsed to one line).
 import { useQueryClient } from "@tanstack/react-query";
 import { useParams } from "next/navigation";
 import { useState, type ReactNode } from "react";
+import { LiveRunAccuracy } from "@/components/accuracy/live-run-accuracy";
 import { RunSaveControl, type RunSaveSource } from "@/components/runs/run-save-control";
 import { Button } from "@/components/ui/button";
 import { ErrorState } from "@/components/ui/states";
@@ -137,6 +139,8 @@ export function RunPanel({
       {state.result && (phase === "finished" || phase === "cancelled") ? (
         <RunSaveControl result={state.result} threads={state.engine?.threads} source={runSource} canSave={canRun} />
       ) : null}
+      {/* The scene captured at the start is the one the run stepped and a save files: the estimate describes it. */}
+      {state.result && runSource && (phase === "finished" || phase === "cancelled") ? <LiveRunAccuracy scene={runSource.scene} result={state.result} /> : null}
       {state.error ? (
         <ErrorState title={state.error.unstable ? "The simulation became unstable" : "The simulation stopped"} message={state.error.message} />
       ) : null}

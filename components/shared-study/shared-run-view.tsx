@@ -1,9 +1,10 @@
 "use client";
 // One saved run opened by a read-only link: what was run and where it stands in review, its figures, the
-// field replayed from the stored payload, the scene as run, and the receivers' traces, spectra and band
-// levels. The payload comes through the link; nothing is recomputed or saved.
+// field replayed from the stored payload, the scene as run, its accuracy estimate, and the receivers' traces,
+// spectra and band levels. The payload comes through the link; nothing is recomputed or saved.
 import Link from "next/link";
 import { useMemo, useState } from "react";
+import { RunAccuracySection } from "@/components/accuracy/run-accuracy-section";
 import { AnalysisPanel, SectionCaution } from "@/components/analysis/analysis-controls";
 import { BandLevelsPanel } from "@/components/analysis/band-levels-panel";
 import { analysisTraces } from "@/components/analysis/analysis-traces";
@@ -89,6 +90,12 @@ export function SharedRunView({ token, studyTitle, run }: { token: string; study
           </section>
         </aside>
       </div>
+      <section aria-labelledby="accuracy-heading" className="flex flex-col gap-3">
+        <h2 id="accuracy-heading" className="text-base font-semibold text-ink">
+          Accuracy
+        </h2>
+        {payload.data ? <RunAccuracySection run={payload.data} /> : waiting}
+      </section>
       <section aria-labelledby="analysis-heading" className="flex flex-col gap-3">
         <h2 id="analysis-heading" className="text-base font-semibold text-ink">
           Receivers
