@@ -1,24 +1,10 @@
 "use client";
-// A token just made, shown this once: Rarefact keeps only a hash of the secret. Copy uses the clipboard
-// where the browser allows; otherwise the secret is selected for Ctrl+C.
-import { useRef, useState } from "react";
+// A token just made, shown this once: Rarefact keeps only a hash of the secret.
 import { Button } from "@/components/ui/button";
+import { useCopyOnce } from "@/components/ui/use-copy-once";
 
 export function NewTokenBox({ name, secret, onDone }: { name: string; secret: string; onDone: () => void }) {
-  const field = useRef<HTMLInputElement>(null);
-  const [copied, setCopied] = useState<"no" | "yes" | "select">("no");
-
-  async function copy() {
-    try {
-      if (!navigator.clipboard) throw new Error("no clipboard");
-      await navigator.clipboard.writeText(secret);
-      setCopied("yes");
-    } catch {
-      field.current?.focus();
-      field.current?.select();
-      setCopied("select");
-    }
-  }
+  const { field, copied, copy } = useCopyOnce(secret);
 
   return (
     <div role="status" className="flex flex-col gap-3 rounded-lg border border-ember-100 bg-ember-50 p-4" data-testid="new-api-token">

@@ -1,24 +1,10 @@
 "use client";
 // A link just made, shown this once: its URL holds the secret, and Rarefact keeps only a hash of it.
-// Copy uses the clipboard where the browser allows; otherwise the URL is selected for Ctrl+C.
-import { useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
+import { useCopyOnce } from "@/components/ui/use-copy-once";
 
 export function NewLinkBox({ label, url, onDone }: { label: string; url: string; onDone: () => void }) {
-  const field = useRef<HTMLInputElement>(null);
-  const [copied, setCopied] = useState<"no" | "yes" | "select">("no");
-
-  async function copy() {
-    try {
-      if (!navigator.clipboard) throw new Error("no clipboard");
-      await navigator.clipboard.writeText(url);
-      setCopied("yes");
-    } catch {
-      field.current?.focus();
-      field.current?.select();
-      setCopied("select");
-    }
-  }
+  const { field, copied, copy } = useCopyOnce(url);
 
   return (
     <div role="status" className="flex flex-col gap-2 rounded-md border border-tide-300 bg-tide-50 p-3" data-testid="new-share-link">
